@@ -1,0 +1,54 @@
+import { z } from "zod";
+
+/**
+ * The only reader of process.env. Parsed once, on first use; a bad value fails at boot
+ * with every problem listed, not on the first request that needs it.
+ */
+const Env = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  /** Demo mode shows demo sign-ins on the sign-in page. On for `npm start`, off by default. */
+  MODEWARDEN_DEMO: z.enum(["0", "1"]).default("0").transform((v) => v === "1"),
+  MODEWARDEN_DATA_DIR: z.string().min(1).default(".data"),
+  PGHOST: z.string().default("127.0.0.1"),
+  PGPORT: z.coerce.number().int().min(1).max(65535).default(54329),
+  PGUSER: z.string().default("modewarden"),
+  PGPASSWORD: z.string().default("modewarden"),
+  PGDATABASE: z.string().default("modewarden"),
+  REDIS_HOST: z.string().default("127.0.0.1"),
+  REDIS_PORT: z.coerce.number().int().min(1).max(65535).default(63799),
+  SMTP_HOST: z.string().default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  /** HTTP port of the local mail catcher's JSON listing (development and tests only). */
+  MAIL_CATCHER_HTTP_PORT: z.coerce.number().int().min(1).max(65535).default(2580),
+  MAIL_FROM: z.string().default("Modewarden <no-reply@modewarden.local>"),
+  APP_URL: z.string().url().default("http://127.0.0.1:3000"),
+  NEXTAUTH_SECRET: z.string().min(16).default("modewarden-development-secret-change-me"),
+  /** Optional MapLibre style URL for users with their own tile server; empty = offline basemap. */
+  MAP_STYLE_URL: z.string().default(""),
+  STORAGE_DRIVER: z.enum(["fs", "s3"]).default("fs"),
+  LOG_LEVEL: z.enum(["debug", "info", "warn", "error"]).default("info"),
+});
+
+export type Env = z.infer<typeof Env>;
+
+let cached: Env | null = null;
+
+/** Parse and cache the environment; throws with every invalid variable listed. */
+export function env(): Env {
+  if (cached) return cached;
+  const parsed = Env.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Invalid environment:\n${lines.join("\n")}`);
+  }
+  if (parsed.data.NODE_ENV === "production" && parsed.data.NEXTAUTH_SECRET.startsWith("modewarden-development")) {
+    throw new Error("Invalid environment:\n  NEXTAUTH_SECRET: must be set in production");
+  }
+  cached = parsed.data;
+  return cached;
+}
+
+/** Drop the cache (tests that change process.env between cases). */
+export function resetEnvForTests(): void {
+  cached = null;
+}
