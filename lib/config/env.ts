@@ -20,6 +20,24 @@ const Env = z.object({
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   /** HTTP port of the local mail catcher's JSON listing (development and tests only). */
   MAIL_CATCHER_HTTP_PORT: z.coerce.number().int().min(1).max(65535).default(2580),
+  /** Shows the caught-mail page /dev/mail (set by `npm start` and `npm test`, never in a real deployment). */
+  MODEWARDEN_DEV_MAIL: z.enum(["0", "1"]).default("0").transform((v) => v === "1"),
+  /** Port `npm start` serves the app on (127.0.0.1); APP_URL defaults to match it. */
+  APP_PORT: z.coerce.number().int().min(1).max(65535).default(3000),
+  /** Debian's PostgreSQL 15 binaries, used by the launchers for the private cluster. */
+  PG_BIN_DIR: z.string().default("/usr/lib/postgresql/15/bin"),
+  /** Browser for the e2e tests (playwright-core launches it; Debian's chromium). */
+  CHROMIUM_PATH: z.string().default("/usr/bin/chromium"),
+  /**
+   * Read only by scripts/test.mjs (listed here so every variable lives in one place): the
+   * throw-away test stack's ports and folder (empty = a fresh folder under the OS temp dir).
+   */
+  TEST_PGPORT: z.coerce.number().int().min(1).max(65535).default(54339),
+  TEST_REDIS_PORT: z.coerce.number().int().min(1).max(65535).default(63809),
+  TEST_SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2535),
+  TEST_MAIL_CATCHER_HTTP_PORT: z.coerce.number().int().min(1).max(65535).default(2590),
+  TEST_APP_PORT: z.coerce.number().int().min(1).max(65535).default(3100),
+  TEST_DATA_DIR: z.string().default(""),
   MAIL_FROM: z.string().default("Modewarden <no-reply@modewarden.local>"),
   APP_URL: z.string().url().default("http://127.0.0.1:3000"),
   NEXTAUTH_SECRET: z.string().min(16).default("modewarden-development-secret-change-me"),
