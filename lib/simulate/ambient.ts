@@ -12,9 +12,10 @@
  * Gaussian at the requested SNR per channel.
  *
  * Forcing level: `modalForceStd[j]` = σ is the standard deviation of the modal force samples
- * per unit modal mass (m/s²); their two-sided PSD below fs/2 is S₀ = σ²/fs ((m/s²)²/Hz),
- * and the band-limited force PSD rolls off as sinc⁴(f/fs) (first-order hold), which is
- * 1 − 0.3 % at f = fs/20.
+ * per unit modal mass (m/s²); they are white with two-sided PSD S₀ = σ²/fs ((m/s²)²/Hz)
+ * up to fs/2. The recursion is exact for the force interpolated linearly between samples,
+ * which follows ideal white forcing within ≈ (2πf/fs)²/12 in PSD (≤ 0.9 % below fs/20,
+ * ≈ 5 % at fs/8): keep modes of interest well below Nyquist (a warning is given above 0.4·fs).
  *
  * [1] Chopra, Dynamics of Structures (modal superposition).
  * [2] Franklin, Powell & Workman, Digital Control of Dynamic Systems, ch. 4 & 6.
