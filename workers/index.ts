@@ -1,0 +1,40 @@
+/**
+ * The worker process (`node --import tsx workers/index.ts`): one process for every queue so
+ * SIGTERM reaches it directly. On SIGTERM/SIGINT it closes the workers (letting running jobs
+ * finish), then the producers, Redis, the SMTP transport and Knex.
+ */
+import type { Worker } from "bullmq";
+import { createRedisConnection } from "@/lib/jobs/connection";
+import { closeQueues } from "@/lib/jobs/queues";
+import { closeMailTransport } from "@/lib/email/transport";
+import { closeDb } from "@/lib/db/knex";
+import { createMailWorker } from "./mail.worker";
+
+const connection = createRedisConnection();
+const workers: Worker[] = [createMailWorker(connection)];
+
+for (const w of workers) {
+  w.on("failed", (job, err) => console.error(`${w.name} job ${job?.id ?? "?"} failed (attempt ${job?.attemptsMade ?? "?"}): ${err.message}`));
+  w.on("error", (err) => console.error(`${w.name} worker error: ${err.message}`));
+}
+console.log(`worker ready: ${workers.map((w) => w.name).join(", ")}`);
+
+let closing = false;
+async function shutdown(signal: string): Promise<void> {
+  if (closing) return;
+  closing = true;
+  console.log(`${signal}: closing workers`);
+  const force = setTimeout(() => process.exit(1), 15_000);
+  force.unref();
+  try {
+    await Promise.all(workers.map((w) => w.close()));
+    await closeQueues();
+    await connection.quit().catch(() => connection.disconnect());
+    closeMailTransport();
+    await closeDb();
+  } finally {
+    process.exit(0);
+  }
+}
+process.on("SIGTERM", () => void shutdown("SIGTERM"));
+process.on("SIGINT", () => void shutdown("SIGINT"));
