@@ -1,0 +1,68 @@
+import type { Metadata } from "next";
+import { connection } from "next/server";
+import { requireActor } from "@/lib/auth/session";
+import { listApiTokens, listMemberships } from "@/lib/services/accounts/account.service";
+import { getOrganisation, getProfile } from "@/lib/services/accounts/profile.service";
+import { PageHeader, Panel } from "@/components/ui/panel";
+import { ROLE_LABELS } from "@/components/ui/format";
+import { OrganisationSwitcher } from "../_components/organisation-switcher";
+import { ChangePasswordForm } from "./_components/change-password-form";
+import { ProfileForm } from "./_components/profile-form";
+import { TokenSection } from "./_components/token-section";
+
+export const metadata: Metadata = { title: "Account" };
+
+/** Account: the signed-in person's name, password, personal API tokens and organisations. */
+export default async function AccountPage() {
+  await connection();
+  const actor = await requireActor();
+  const [profile, tokens, memberships, organisation] = await Promise.all([
+    getProfile(actor),
+    listApiTokens(actor),
+    listMemberships(actor.userId),
+    getOrganisation(actor),
+  ]);
+  return (
+    <>
+      <PageHeader title="Account">{profile.email}</PageHeader>
+      <div className="grid gap-5 lg:grid-cols-2">
+        <div className="space-y-5">
+          <Panel title="Profile">
+            <ProfileForm displayName={profile.displayName} />
+          </Panel>
+          <Panel title="Password">
+            <ChangePasswordForm email={profile.email} />
+          </Panel>
+        </div>
+        <div className="space-y-5">
+          <Panel title="Organisation">
+            <p className="mb-3 text-sm">
+              You work in <strong>{organisation.name}</strong> as <strong>{ROLE_LABELS[actor.role]}</strong>.
+            </p>
+            {memberships.length > 1 ? (
+              <div className="flex items-center gap-3 text-sm">
+                <span className="text-muted">Switch to</span>
+                <OrganisationSwitcher memberships={memberships} currentId={actor.organisationId} variant="light" />
+              </div>
+            ) : (
+              <p className="text-xs text-faint">You belong to one organisation.</p>
+            )}
+          </Panel>
+          <Panel title="Personal API tokens">
+            <TokenSection
+              tokens={tokens.map((t) => ({
+                id: t.id,
+                name: t.name,
+                prefix: t.prefix,
+                createdAt: t.createdAt.toISOString(),
+                lastUsedAt: t.lastUsedAt ? t.lastUsedAt.toISOString() : null,
+                revokedAt: t.revokedAt ? t.revokedAt.toISOString() : null,
+              }))}
+              timeZone={organisation.timeZone}
+            />
+          </Panel>
+        </div>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,26 @@
+"use client";
+
+import { startTransition, useActionState, type FormEvent } from "react";
+
+/** What every server action built with `defineAction` answers. */
+export type ActionResult<T> =
+  | { ok: true; data: T }
+  | { ok: false; message: string; fieldErrors: Record<string, string[]> };
+
+export type ActionState<T> = ActionResult<T> | null;
+
+/**
+ * `useActionState` for a form, dispatched from `onSubmit` so React does not reset the inputs
+ * when the action answers with field errors (a `<form action>` is reset after every submit).
+ */
+export function useFormAction<T>(action: (prev: ActionState<T>, formData: FormData) => Promise<ActionResult<T>>) {
+  const [state, dispatch, pending] = useActionState<ActionState<T>, FormData>(action, null);
+  function onSubmit(e: FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const fd = new FormData(e.currentTarget, (e.nativeEvent as SubmitEvent).submitter);
+    startTransition(() => dispatch(fd));
+  }
+  const fieldErrors = state && !state.ok ? state.fieldErrors : {};
+  const message = state && !state.ok ? state.message : null;
+  return { state, onSubmit, pending, fieldErrors, message };
+}
