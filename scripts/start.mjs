@@ -1,0 +1,117 @@
+#!/usr/bin/env node
+// `npm start`: set up a fresh clone and run the whole product on this machine.
+// npm packages → redis-server → PostgreSQL cluster → Redis → mail catcher → migrations →
+// demo seed → build → app + worker. Ctrl-C / SIGTERM stops app, worker, catcher, Redis and
+// PostgreSQL, in that order. Only Node built-ins here: node_modules may not exist yet.
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { childEnv, devConfig } from "./stack/config.mjs";
+import { formatDuration, httpGet, log, run, tcpOpen, waitFor } from "./stack/proc.mjs";
+import { resolvePgPaths, startPostgres } from "./stack/postgres.mjs";
+import { startRedis } from "./stack/redis.mjs";
+import { killStale, Supervisor } from "./stack/supervisor.mjs";
+import { ensureDebianPackage, ensureNodeModules } from "./stack/system.mjs";
+import { buildIfNeeded, printDemoUsers, TSX, nextBin } from "./stack/app.mjs";
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+const t0 = Date.now();
+const stoppers = []; // [name, stop] in start order; stopped in reverse
+let shuttingDown = false;
+let supervisor = null;
+
+async function shutdown(code) {
+  if (shuttingDown) return;
+  shuttingDown = true;
+  log("stack", "stopping: app, worker, mail catcher, Redis, PostgreSQL");
+  for (const [name, stop] of [...stoppers].reverse()) {
+    try {
+      await stop();
+      log("stack", `${name} stopped`);
+    } catch (err) {
+      log("stack", `${name}: ${err.message}`);
+    }
+  }
+  process.exit(code);
+}
+
+for (const signal of ["SIGINT", "SIGTERM", "SIGHUP"]) {
+  process.on(signal, () => {
+    if (shuttingDown) log("stack", "still stopping…");
+    else void shutdown(0);
+  });
+}
+
+async function main() {
+  if (process.getuid?.() !== 0) throw new Error("npm start runs as root (it manages a PostgreSQL cluster through runuser)");
+  await ensureNodeModules(root);
+  await ensureDebianPackage("/usr/bin/redis-server", "redis-server");
+
+  const cfg = devConfig(root);
+  const env = childEnv(cfg, { MODEWARDEN_DEMO: "1" });
+  for (const [name, p] of [["app", cfg.appPort], ["mail catcher SMTP", cfg.smtpPort], ["mail catcher HTTP", cfg.catcherPort]]) {
+    if (await tcpOpen(p)) {
+      // Maybe a leftover of a killed launcher: try its pid files first.
+      await Promise.all(["app", "worker", "mail"].map((n) => killStale(path.join(cfg.dataDir, "run", `${n}.pid`), root)));
+      if (await tcpOpen(p)) throw new Error(`port ${p} (${name}) is in use; stop that program or choose another port`);
+    }
+  }
+  await Promise.all(["app", "worker", "mail"].map((n) => killStale(path.join(cfg.dataDir, "run", `${n}.pid`), root)));
+
+  supervisor = new Supervisor({
+    runDir: path.join(cfg.dataDir, "run"),
+    onUnexpectedExit: (name, code) => {
+      log("stack", `${name} exited unexpectedly (${code}); stopping everything`);
+      void shutdown(1);
+    },
+  });
+
+  const pgPaths = await resolvePgPaths(cfg.dataDir);
+  const pg = await startPostgres({ binDir: cfg.pgBinDir, ...pgPaths, port: cfg.pgPort, ...cfg.pg });
+  stoppers.push(["PostgreSQL", () => pg.stop()]);
+  log("pg", `PostgreSQL 15 on 127.0.0.1:${cfg.pgPort} (data ${pg.dataDir})`);
+
+  const redis = await startRedis({ port: cfg.redisPort, dir: path.join(cfg.dataDir, "redis") });
+  stoppers.push(["Redis", () => redis.stop()]);
+  log("redis", `Redis on 127.0.0.1:${cfg.redisPort} (append-only, ${path.join(cfg.dataDir, "redis")})`);
+
+  supervisor.start("mail", process.execPath, [...TSX, path.join(root, "scripts/mail-catcher.ts")], { env, cwd: root });
+  stoppers.push(["mail catcher", () => supervisor.stop("mail")]);
+  await waitFor("the mail catcher", async () => (await httpGet(`http://127.0.0.1:${cfg.catcherPort}/health`)).status === 200, { timeoutMs: 30_000 });
+
+  await run(process.execPath, [...TSX, path.join(root, "scripts/migrate.ts")], { env, cwd: root, inherit: true });
+  await run(process.execPath, [...TSX, path.join(root, "scripts/seed.ts")], { env, cwd: root, inherit: true });
+  await buildIfNeeded(root, env);
+
+  supervisor.start("app", process.execPath, [nextBin(root), "start", "-H", "127.0.0.1", "-p", String(cfg.appPort)], {
+    env: { ...env, NODE_ENV: "production" },
+    cwd: root,
+  });
+  stoppers.push(["app", () => supervisor.stop("app")]);
+  supervisor.start("worker", process.execPath, [...TSX, path.join(root, "workers/index.ts")], { env, cwd: root });
+  // Stop order is app, worker, catcher, Redis, PostgreSQL: the worker's stopper sits just
+  // before the app's in the (reversed) list.
+  stoppers.splice(stoppers.length - 1, 0, ["worker", () => supervisor.stop("worker")]);
+
+  const health = `http://127.0.0.1:${cfg.appPort}/api/health`;
+  await waitFor("the app's /api/health", async () => (await httpGet(health)).status === 200, { timeoutMs: 120_000, intervalMs: 500 });
+
+  const demo = await printDemoUsers(root, env);
+  log("stack", [
+    "",
+    `Modewarden is running: ${cfg.appUrl}   (ready in ${formatDuration(Date.now() - t0)})`,
+    `  caught e-mail:   ${cfg.appUrl}/dev/mail`,
+    `  health:          ${health}`,
+    "  demo sign-ins:",
+    ...demo.map((u) => `    ${u.role.padEnd(10)} ${u.email.padEnd(28)} ${u.password}`),
+    "Press Ctrl-C to stop everything.",
+    "",
+  ].join("\n"));
+}
+
+main().catch((err) => {
+  log("stack", `start failed: ${err.message}`);
+  void shutdown(1);
+});
+
+// Keep the event loop alive while the children run.
+setInterval(() => {}, 1 << 30);
