@@ -1,18 +1,18 @@
 import type { Metadata } from "next";
 import { connection } from "next/server";
-import { requireActor } from "@/lib/auth/session";
 import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/config/env";
 import { ButtonLink } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/panel";
 import { PortfolioView } from "./_components/portfolio/portfolio-view";
+import { pageActor } from "./_lib/page-actor";
 
 export const metadata: Metadata = { title: "Portfolio" };
 
 /** Portfolio: map and asset table. The asset list itself is fetched by the client from /api/v1/assets. */
 export default async function PortfolioPage() {
   await connection();
-  const actor = await requireActor();
+  const actor = await pageActor();
   return (
     <>
       <PageHeader

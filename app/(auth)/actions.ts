@@ -17,6 +17,12 @@ export const acceptInvitationAction = definePublicAction(withConfirmation(Accept
   return { email };
 });
 
+/** An invitation to an e-mail that already has an account: its current password confirms it. */
+export const acceptInvitationExistingAction = definePublicAction(AcceptInvitationInput, async (input) => {
+  const { email } = await acceptInvitation(input);
+  return { email };
+});
+
 export const requestPasswordResetAction = definePublicAction(RequestPasswordResetInput, async (input) => {
   await requestPasswordReset(input);
   return { sent: true };

@@ -3,7 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { defineAction } from "@/lib/http/define-action";
 import { ChangePasswordInput, CreateApiTokenInput, RevokeApiTokenInput, UpdateProfileInput } from "@/lib/services/accounts/schemas";
-import { createApiToken, revokeApiToken } from "@/lib/services/accounts/account.service";
+import { createApiToken, revokeApiToken } from "@/lib/services/accounts/api-token.service";
 import { changePassword, updateProfile } from "@/lib/services/accounts/profile.service";
 
 export const updateProfileAction = defineAction(UpdateProfileInput, async (input, actor) => {

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { connection } from "next/server";
-import { requireActor } from "@/lib/auth/session";
-import { listApiTokens, listMemberships } from "@/lib/services/accounts/account.service";
+import { listMemberships } from "@/lib/services/accounts/account.service";
+import { listApiTokens } from "@/lib/services/accounts/api-token.service";
 import { getOrganisation, getProfile } from "@/lib/services/accounts/profile.service";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { ROLE_LABELS } from "@/components/ui/format";
@@ -9,13 +9,14 @@ import { OrganisationSwitcher } from "../_components/organisation-switcher";
 import { ChangePasswordForm } from "./_components/change-password-form";
 import { ProfileForm } from "./_components/profile-form";
 import { TokenSection } from "./_components/token-section";
+import { pageActor } from "../_lib/page-actor";
 
 export const metadata: Metadata = { title: "Account" };
 
 /** Account: the signed-in person's name, password, personal API tokens and organisations. */
 export default async function AccountPage() {
   await connection();
-  const actor = await requireActor();
+  const actor = await pageActor();
   const [profile, tokens, memberships, organisation] = await Promise.all([
     getProfile(actor),
     listApiTokens(actor),

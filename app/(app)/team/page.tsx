@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import { connection } from "next/server";
-import { requireActor } from "@/lib/auth/session";
 import { can } from "@/lib/auth/permissions";
 import { listAudit, listMembers } from "@/lib/services/team/team.service";
 import { getOrganisation } from "@/lib/services/accounts/profile.service";
@@ -9,13 +8,14 @@ import { formatDateTime } from "@/components/ui/format";
 import { Table, Td, Th } from "@/components/ui/table";
 import { InviteForm } from "./_components/invite-form";
 import { MemberTable } from "./_components/member-table";
+import { pageActor } from "../_lib/page-actor";
 
 export const metadata: Metadata = { title: "Team" };
 
 /** Team: members of the current organisation; admins invite, change roles and remove. */
 export default async function TeamPage() {
   await connection();
-  const actor = await requireActor();
+  const actor = await pageActor();
   const canWrite = can(actor.role, "team:write");
   const [members, organisation, audit] = await Promise.all([
     listMembers(actor),

@@ -1,18 +1,18 @@
 import Link from "next/link";
 import { connection } from "next/server";
 import type { ReactNode } from "react";
-import { requireActor } from "@/lib/auth/session";
 import { getAsset } from "@/lib/services/assets/asset.service";
 import { ConditionBadge } from "@/components/condition/condition-badge";
 import { KIND_LABELS } from "@/components/ui/format";
 import { orNotFound } from "../../_lib/or-not-found";
 import { AssetTabs } from "./_components/asset-tabs";
+import { pageActor } from "../../_lib/page-actor";
 
 /** Asset header and section links; each section page loads its own data through services. */
 export default async function AssetLayout({ children, params }: { children: ReactNode; params: Promise<{ assetId: string }> }) {
   await connection();
   const { assetId } = await params;
-  const actor = await requireActor();
+  const actor = await pageActor();
   const asset = await orNotFound(getAsset(actor, assetId));
   return (
     <div>

@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import { connection } from "next/server";
-import { requireActor } from "@/lib/auth/session";
 import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/config/env";
 import { toAssetSummary } from "@/lib/domain/types";
@@ -13,6 +12,7 @@ import { Panel } from "@/components/ui/panel";
 import { CONDITION_STYLES } from "@/components/condition/conditions";
 import { orNotFound } from "../../_lib/or-not-found";
 import { AssetLocationMap } from "./_components/asset-location-map";
+import { pageActor } from "../../_lib/page-actor";
 
 export const metadata: Metadata = { title: "Asset" };
 
@@ -29,7 +29,7 @@ function Row({ label, children }: { label: string; children: React.ReactNode }) 
 export default async function AssetOverviewPage({ params }: { params: Promise<{ assetId: string }> }) {
   await connection();
   const { assetId } = await params;
-  const actor = await requireActor();
+  const actor = await pageActor();
   const [asset, channels, gateways, organisation] = await Promise.all([
     orNotFound(getAsset(actor, assetId)),
     orNotFound(listChannels(actor, assetId)),

@@ -29,9 +29,10 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
       <h1 className="text-base font-semibold">Join {invitation.organisationName}</h1>
       <p className="mt-1 mb-4 text-sm text-muted">
         You are invited as <strong className="text-ink">{ROLE_LABELS[invitation.role]}</strong> with{" "}
-        <span className="font-mono text-xs text-ink">{invitation.email}</span>. Choose your name and a password.
+        <span className="font-mono text-xs text-ink">{invitation.email}</span>.{" "}
+        {invitation.existingAccount ? "This e-mail already has an account: confirm with its password." : "Choose your name and a password."}
       </p>
-      <AcceptInvitationForm token={token} />
+      <AcceptInvitationForm token={token} existingAccount={invitation.existingAccount} email={invitation.email} />
     </div>
   );
 }

@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import { connection } from "next/server";
-import { requireActor } from "@/lib/auth/session";
 import { can } from "@/lib/auth/permissions";
 import { toGatewayJson } from "@/lib/domain/types";
 import { listGateways } from "@/lib/services/assets/gateway.service";
@@ -8,6 +7,7 @@ import { getOrganisation } from "@/lib/services/accounts/profile.service";
 import { Panel } from "@/components/ui/panel";
 import { orNotFound } from "../../../_lib/or-not-found";
 import { GatewayList } from "./_components/gateway-list";
+import { pageActor } from "../../../_lib/page-actor";
 
 export const metadata: Metadata = { title: "Gateways" };
 
@@ -15,7 +15,7 @@ export const metadata: Metadata = { title: "Gateways" };
 export default async function GatewaysPage({ params }: { params: Promise<{ assetId: string }> }) {
   await connection();
   const { assetId } = await params;
-  const actor = await requireActor();
+  const actor = await pageActor();
   const [gateways, organisation] = await Promise.all([orNotFound(listGateways(actor, assetId)), getOrganisation(actor)]);
   return (
     <Panel title="Gateways" bodyClassName="p-0">

@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
 import { connection } from "next/server";
-import { requireActor } from "@/lib/auth/session";
 import { can } from "@/lib/auth/permissions";
 import { listChannels } from "@/lib/services/assets/asset.service";
 import { Panel } from "@/components/ui/panel";
 import { orNotFound } from "../../../_lib/or-not-found";
 import { ChannelTable } from "./_components/channel-table";
+import { pageActor } from "../../../_lib/page-actor";
 
 export const metadata: Metadata = { title: "Sensors" };
 
@@ -13,7 +13,7 @@ export const metadata: Metadata = { title: "Sensors" };
 export default async function SensorsPage({ params }: { params: Promise<{ assetId: string }> }) {
   await connection();
   const { assetId } = await params;
-  const actor = await requireActor();
+  const actor = await pageActor();
   const channels = await orNotFound(listChannels(actor, assetId));
   return (
     <Panel title="Sensor channels" bodyClassName="p-0">

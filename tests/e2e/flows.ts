@@ -1,0 +1,88 @@
+/**
+ * Page-level steps shared by the browser tests (sign in, wait for the map, read the mail
+ * catcher). The browser and the stack come from the launcher harness in ./helpers.
+ */
+import fs from "node:fs";
+import path from "node:path";
+import type { Page } from "playwright-core";
+import { expect } from "vitest";
+
+
+/** The five demo assets of PRODUCT.md's scenario (names chosen by the seed, see db/seeds). */
+export const DEMO_ASSET_COUNT = 5;
+
+export const SCREEN_DIR = path.resolve(".tmp/screens");
+
+export async function screenshot(page: Page, name: string): Promise<string> {
+  fs.mkdirSync(SCREEN_DIR, { recursive: true });
+  const file = path.join(SCREEN_DIR, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}
+
+export async function signIn(page: Page, appUrl: string, email: string, password: string): Promise<void> {
+  await page.goto(`${appUrl}/sign-in`);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password", { exact: true }).fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+}
+
+export async function signOut(page: Page): Promise<void> {
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await page.waitForURL(/\/sign-in/);
+}
+
+/** The demo sign-ins as listed on the sign-in page in demo mode: role → { email, password }. */
+export async function readDemoSignIns(page: Page, appUrl: string): Promise<Record<string, { email: string; password: string }>> {
+  await page.goto(`${appUrl}/sign-in`);
+  const box = page.getByTestId("demo-sign-ins");
+  await box.waitFor();
+  const out: Record<string, { email: string; password: string }> = {};
+  const rows = box.locator("li");
+  const n = await rows.count();
+  for (let i = 0; i < n; i++) {
+    const row = rows.nth(i);
+    const role = (await row.locator("span.capitalize").innerText()).trim().toLowerCase();
+    await row.getByRole("button", { name: "Use" }).click();
+    out[role] = {
+      email: await page.getByLabel("E-mail").inputValue(),
+      password: await page.getByLabel("Password", { exact: true }).inputValue(),
+    };
+  }
+  return out;
+}
+
+/** Wait until MapLibre reports that it drew `count` distinct asset markers; returns the count. */
+export async function waitForRenderedAssets(page: Page, count: number): Promise<number> {
+  const map = page.getByTestId("portfolio-map");
+  await map.waitFor();
+  await page.waitForFunction(
+    (n) => document.querySelector("[data-testid=portfolio-map]")?.getAttribute("data-rendered-assets") === String(n),
+    count,
+    { timeout: 60_000 },
+  );
+  return Number(await map.getAttribute("data-rendered-assets"));
+}
+
+export interface CaughtMail {
+  id: string;
+  to: string[];
+  subject: string;
+  text: string;
+  html: string | null;
+}
+
+/** Poll the mail catcher's JSON listing until a message to `to` arrives. */
+export async function waitForMail(catcherUrl: string, to: string, timeoutMs = 60_000): Promise<CaughtMail> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const res = await fetch(`${catcherUrl}/messages`);
+    expect(res.ok).toBe(true);
+    const body = (await res.json()) as CaughtMail[] | { messages: CaughtMail[] };
+    const list = Array.isArray(body) ? body : body.messages;
+    const hit = list.find((m) => m.to.map((t) => t.toLowerCase()).includes(to.toLowerCase()));
+    if (hit) return hit;
+    if (Date.now() > deadline) throw new Error(`no e-mail to ${to} within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 500));
+  }
+}
