@@ -18,7 +18,6 @@ export default withAuth({
       get name() {
         return sessionCookieName();
       },
-      options: {},
     },
   },
   pages: { signIn: "/sign-in" },
