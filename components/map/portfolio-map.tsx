@@ -79,6 +79,7 @@ export function PortfolioMap({ assets, styleUrl, className }: Props) {
   const mapRef = useRef<MapRef>(null);
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const [rendered, setRendered] = useState<number | null>(null);
+  const [positions, setPositions] = useState<string>("");
   const [cursor, setCursor] = useState<string>("");
   const data = useMemo(() => toFeatures(assets), [assets]);
   const bounds = useMemo(() => boundsOf(assets), [assets]);
@@ -95,7 +96,14 @@ export function PortfolioMap({ assets, styleUrl, className }: Props) {
       if (typeof id === "string") ids.add(id);
     }
     setRendered(ids.size);
-  }, []);
+    // Screen position of each asset (canvas pixels), so tests can click a marker.
+    const pos: Record<string, { x: number; y: number }> = {};
+    for (const a of assets) {
+      const p = map.project([a.longitude, a.latitude]);
+      pos[a.id] = { x: Math.round(p.x), y: Math.round(p.y) };
+    }
+    setPositions(JSON.stringify(pos));
+  }, [assets]);
 
   const onClick = useCallback((e: MapLayerMouseEvent) => {
     const id = e.features?.[0]?.properties?.id;
@@ -108,6 +116,7 @@ export function PortfolioMap({ assets, styleUrl, className }: Props) {
       data-testid="portfolio-map"
       data-rendered-assets={rendered ?? ""}
       data-asset-count={assets.length}
+      data-marker-positions={positions}
     >
       <MapGL
         ref={mapRef}

@@ -86,3 +86,57 @@ export async function waitForMail(catcherUrl: string, to: string, timeoutMs = 60
     await new Promise((r) => setTimeout(r, 500));
   }
 }
+
+/** The five assets of PRODUCT.md's demo scenario, as named in foundation-spec.md. */
+export const DEMO_ASSET_NAMES = [
+  "Millrace Footbridge",
+  "Fernbrook Timber Footbridge",
+  "Heron Reach Cable-Stayed Footbridge",
+  "Carrow Hill Telecom Mast",
+  "Quarry Lane Lighting Tower",
+] as const;
+
+/** `GET /api/v1/assets` with the page's session: the list the Portfolio is drawn from. */
+export async function fetchAssetsInPage(page: Page): Promise<Array<{ id: string; name: string; condition: string }>> {
+  return page.evaluate(async () => {
+    const res = await fetch("/api/v1/assets", { headers: { accept: "application/json" } });
+    const body = (await res.json()) as { assets: Array<{ id: string; name: string; condition: string }> };
+    return body.assets;
+  });
+}
+
+function hexToRgb(hex: string): [number, number, number] {
+  const n = parseInt(hex.slice(1), 16);
+  return [(n >> 16) & 255, (n >> 8) & 255, n & 255];
+}
+
+/**
+ * Count pixels of a PNG (decoded by the browser) within `tolerance` (per channel) of each colour.
+ * Used to read back the map canvas: markers must really be painted in their condition colour.
+ */
+export async function countColourPixels(page: Page, png: Buffer, colours: Record<string, string>, tolerance = 12): Promise<Record<string, number>> {
+  const targets = Object.entries(colours).map(([k, hex]) => [k, hexToRgb(hex)] as const);
+  return page.evaluate(
+    async ({ b64, targets, tolerance }) => {
+      const img = new Image();
+      img.src = `data:image/png;base64,${b64}`;
+      await img.decode();
+      const c = document.createElement("canvas");
+      c.width = img.naturalWidth;
+      c.height = img.naturalHeight;
+      const ctx = c.getContext("2d");
+      if (!ctx) throw new Error("no 2d context");
+      ctx.drawImage(img, 0, 0);
+      const d = ctx.getImageData(0, 0, c.width, c.height).data;
+      const counts: Record<string, number> = {};
+      for (const [k] of targets) counts[k] = 0;
+      for (let i = 0; i < d.length; i += 4) {
+        for (const [k, [r, g, b]] of targets) {
+          if (Math.abs(d[i] - r) <= tolerance && Math.abs(d[i + 1] - g) <= tolerance && Math.abs(d[i + 2] - b) <= tolerance) counts[k]++;
+        }
+      }
+      return counts;
+    },
+    { b64: png.toString("base64"), targets, tolerance },
+  );
+}
