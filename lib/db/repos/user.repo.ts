@@ -53,3 +53,7 @@ export async function insertUser(
 export async function updateUserPassword(db: Db, id: string, passwordHash: string): Promise<void> {
   await withDbErrors(() => db("users").where({ id }).update({ password_hash: passwordHash, updated_at: db.fn.now() }));
 }
+
+export async function updateUserDisplayName(db: Db, id: string, displayName: string): Promise<void> {
+  await withDbErrors(() => db("users").where({ id }).update({ display_name: displayName, updated_at: db.fn.now() }));
+}

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { emailField } from "@/lib/services/fields";
+import { PasswordField } from "@/lib/services/team/schemas";
 
 export const SignInInput = z.object({
   email: emailField,
@@ -17,3 +18,18 @@ export type RevokeApiTokenInput = z.infer<typeof RevokeApiTokenInput>;
 
 export const SwitchOrganisationInput = z.object({ organisationId: z.uuid("No such organisation.") });
 export type SwitchOrganisationInput = z.infer<typeof SwitchOrganisationInput>;
+
+export const UpdateProfileInput = z.object({
+  displayName: z.string({ error: "Name is required." }).trim().min(1, "Name is required.").max(120, "At most 120 characters."),
+});
+export type UpdateProfileInput = z.infer<typeof UpdateProfileInput>;
+
+export const ChangePasswordInput = z.object({
+  currentPassword: z.string({ error: "Enter your current password." }).min(1, "Enter your current password."),
+  newPassword: PasswordField,
+  /** Optional here: the form may send it and the service checks it matches when present. */
+  confirmPassword: z.string().optional(),
+}).refine((v) => v.confirmPassword === undefined || v.confirmPassword === v.newPassword, {
+  path: ["confirmPassword"], message: "The two passwords differ.",
+});
+export type ChangePasswordInput = z.infer<typeof ChangePasswordInput>;

@@ -4,9 +4,10 @@
  */
 import { db } from "@/lib/db/knex";
 import {
-  findGatewayById, insertGateway, listGatewaysOfAsset, revokeGatewayById,
+  findGatewayById, findGatewayByKeyHash, insertGateway, listGatewaysOfAsset, revokeGatewayById, touchGateway,
 } from "@/lib/db/repos/gateway.repo";
-import { GATEWAY_KEY_PREFIX, generateSecret } from "@/lib/auth/tokens";
+import { findAssetById } from "@/lib/db/repos/asset.repo";
+import { GATEWAY_KEY_PREFIX, generateSecret, hashSecret } from "@/lib/auth/tokens";
 import type { Actor, Gateway } from "@/lib/domain/types";
 import { AppError } from "@/lib/http/errors";
 import { recordAudit } from "@/lib/services/audit/audit.service";
@@ -55,4 +56,25 @@ export async function revokeGateway(actor: Actor, assetId: string, gatewayId: st
     });
     return gateway;
   });
+}
+
+/** A gateway acting with its device key: the asset it may upload to, nothing else. */
+export interface DeviceActor {
+  gatewayId: string;
+  assetId: string;
+  organisationId: string;
+}
+
+/**
+ * The gateway a device key (`mw_gw_…`) belongs to, or null (unknown, revoked, or not a
+ * device key). Marks the gateway as seen.
+ */
+export async function deviceFromGatewayKey(bearer: string): Promise<DeviceActor | null> {
+  if (!bearer.startsWith(GATEWAY_KEY_PREFIX)) return null;
+  const gateway = await findGatewayByKeyHash(db(), hashSecret(bearer));
+  if (!gateway || gateway.revokedAt) return null;
+  const asset = await findAssetById(db(), gateway.assetId);
+  if (!asset) return null;
+  await touchGateway(db(), gateway.id, new Date());
+  return { gatewayId: gateway.id, assetId: asset.id, organisationId: asset.organisationId };
 }
