@@ -5,14 +5,15 @@ import { definePublicAction } from "@/lib/http/define-action";
 import { AcceptInvitationInput, RequestPasswordResetInput, ResetPasswordInput } from "@/lib/services/team/schemas";
 import { acceptInvitation, requestPasswordReset, resetPassword } from "@/lib/services/team/team.service";
 
-/** Both password fields must agree before the service sees the password. */
-function withConfirmation<S extends z.ZodObject<{ password: z.ZodType<string> }>>(schema: S) {
-  return schema
-    .extend({ confirmPassword: z.string({ error: "Repeat the password." }) })
-    .refine((v) => v.password === v.confirmPassword, { path: ["confirmPassword"], message: "The two passwords differ." });
-}
+const confirmPassword = z.string({ error: "Repeat the password." });
+const samePassword = (v: { password: string; confirmPassword: string }) => v.password === v.confirmPassword;
+const differ = { path: ["confirmPassword"], message: "The two passwords differ." };
 
-export const acceptInvitationAction = definePublicAction(withConfirmation(AcceptInvitationInput), async ({ token, displayName, password }) => {
+/** Both password fields must agree before the service sees the password. */
+const AcceptInvitationForm = AcceptInvitationInput.extend({ confirmPassword }).refine(samePassword, differ);
+const ResetPasswordForm = ResetPasswordInput.extend({ confirmPassword }).refine(samePassword, differ);
+
+export const acceptInvitationAction = definePublicAction(AcceptInvitationForm, async ({ token, displayName, password }) => {
   const { email } = await acceptInvitation({ token, displayName, password });
   return { email };
 });
@@ -28,7 +29,7 @@ export const requestPasswordResetAction = definePublicAction(RequestPasswordRese
   return { sent: true };
 });
 
-export const resetPasswordAction = definePublicAction(withConfirmation(ResetPasswordInput), async ({ token, password }) => {
+export const resetPasswordAction = definePublicAction(ResetPasswordForm, async ({ token, password }) => {
   const { email } = await resetPassword({ token, password });
   return { email };
 });

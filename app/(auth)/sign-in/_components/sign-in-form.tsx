@@ -1,6 +1,7 @@
 "use client";
 
 import { signIn } from "next-auth/react";
+import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
@@ -69,9 +70,9 @@ export function SignInForm({ demo, callbackUrl, initialEmail }: { demo: DemoSign
           {pending ? "Signing in…" : "Sign in"}
         </Button>
         <p className="text-center text-xs">
-          <a href="/reset" className="text-accent hover:underline">
+          <Link href="/reset" className="text-accent hover:underline">
             Forgot your password?
-          </a>
+          </Link>
         </p>
       </form>
       {demo && demo.length > 0 ? (
