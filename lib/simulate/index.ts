@@ -6,3 +6,4 @@ export { simplySupportedBeamModes, cantileverBeamModes, type BeamOptions } from 
 export { simulateAmbientRecord, type AmbientOptions, type AmbientRecord, type SimulatedMode } from "./ambient";
 export { applyDefects, type RecordDefect, type DefectResult } from "./defects";
 export { frequencyAtTemperature, type TemperatureSensitivity } from "./temperature";
+export { simulateForcedTest, type ForcedTestOptions, type ForcedTestRecord, type ForcedExcitation } from "./forced";
