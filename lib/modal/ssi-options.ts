@@ -23,7 +23,11 @@ export interface SsiCovOptions {
   blockRows?: number;
   /** Frequency bands [lo, hi] in Hz (0 ≤ lo < hi) to keep modes in; default all. */
   bandsHz?: [number, number][];
-  /** Target rate in Hz for decimation before identification (> 0); not applied yet (warning). */
+  /**
+   * Target rate in Hz (> 0): the record is low-passed and decimated by the integer
+   * q = ⌊fs/target⌋ (zero-phase FIR, lib/signal/decimate) when q ≥ 2; identify modes below
+   * ≈ 0.8 × the new Nyquist. Default: no decimation.
+   */
   decimateToHz?: number;
   /** Minimum poles per cluster, integer ≥ 2; default max(3, ⌈0.2·number of orders⌉). */
   minClusterSize?: number;
@@ -45,6 +49,8 @@ export interface ResolvedSsiOptions {
   minRelativeClusterSize: number;
   clusterThreshold: number;
   maxDampingRatio: number;
+  /** Integer decimation factor (1 = none). */
+  decimation: number;
   warnings: string[];
 }
 
@@ -86,8 +92,20 @@ export function resolveSsiOptions(record: SsiRecord, options: SsiCovOptions): Re
   assertInteger(blockRows, "blockRows", 2, 1000);
   if (blockRows * r < maxOrder) throw new RangeError(`blockRows·references must be ≥ maxOrder (got ${blockRows}·${r} < ${maxOrder})`);
   if ((blockRows - 1) * l < maxOrder) throw new RangeError(`(blockRows − 1)·channels must be ≥ maxOrder (got ${blockRows - 1}·${l} < ${maxOrder})`);
-  if (n <= 20 * (2 * blockRows - 1)) {
-    throw new RangeError(`record must have more than 20·(2·blockRows − 1) = ${20 * (2 * blockRows - 1)} samples (got ${n})`);
+  let decimation = 1;
+  if (options.decimateToHz !== undefined) {
+    assertPositive(options.decimateToHz, "decimateToHz");
+    decimation = Math.min(64, Math.floor(record.sampleRateHz / options.decimateToHz + 1e-9));
+    if (decimation < 2) {
+      decimation = 1;
+      warnings.push(`decimateToHz = ${options.decimateToHz} needs no integer decimation of ${record.sampleRateHz} Hz: none applied`);
+    } else if (Math.abs((record.sampleRateHz / decimation) / options.decimateToHz - 1) > 1e-9) {
+      warnings.push(`decimated by ${decimation} to ${record.sampleRateHz / decimation} Hz (the nearest integer factor not below decimateToHz = ${options.decimateToHz})`);
+    }
+  }
+  const nUsed = Math.ceil(n / decimation);
+  if (nUsed <= 20 * (2 * blockRows - 1)) {
+    throw new RangeError(`record must have more than 20·(2·blockRows − 1) = ${20 * (2 * blockRows - 1)} samples after decimation (got ${nUsed})`);
   }
 
   let bands: [number, number][] | null = null;
@@ -98,10 +116,6 @@ export function resolveSsiOptions(record: SsiRecord, options: SsiCovOptions): Re
       if (!(b[0] >= 0 && b[0] < b[1])) throw new RangeError(`bandsHz[${j}] must satisfy 0 ≤ lo < hi (got [${b[0]}, ${b[1]}])`);
     });
     bands = options.bandsHz.map((b) => [b[0], b[1]]);
-  }
-  if (options.decimateToHz !== undefined) {
-    assertPositive(options.decimateToHz, "decimateToHz");
-    warnings.push(`decimateToHz = ${options.decimateToHz} was not applied (decimation is not wired in yet); identified at ${record.sampleRateHz} Hz`);
   }
   const nOrders = maxOrder / 2;
   const minClusterSize = options.minClusterSize ?? Math.max(3, Math.ceil(0.2 * nOrders));
@@ -114,7 +128,7 @@ export function resolveSsiOptions(record: SsiRecord, options: SsiCovOptions): Re
   const maxDampingRatio = options.maxDampingRatio ?? 0.2;
   assertPositive(maxDampingRatio, "maxDampingRatio");
   if (maxDampingRatio >= 1) throw new RangeError(`maxDampingRatio must be < 1 (got ${maxDampingRatio})`);
-  return { referenceChannels: refs, maxOrder, blockRows, bandsHz: bands, sampleRateHz: record.sampleRateHz, minClusterSize, minRelativeClusterSize, clusterThreshold, maxDampingRatio, warnings };
+  return { referenceChannels: refs, maxOrder, blockRows, bandsHz: bands, sampleRateHz: record.sampleRateHz / decimation, decimation, minClusterSize, minRelativeClusterSize, clusterThreshold, maxDampingRatio, warnings };
 }
 
 /** Indices of the `k` channels of largest RMS, in channel order. */

@@ -67,6 +67,25 @@ describe("identifyModesSsiCov on a simulated 5-storey shear frame", () => {
   });
 });
 
+describe("identifyModesSsiCov with decimation", () => {
+  it("decimates a 200 Hz record to 50 Hz and finds the same modes", () => {
+    // Same structure and tolerances as above; decimation (zero-phase FIR, lib/signal) keeps
+    // the modes below 0.8 × the new Nyquist (20 Hz) untouched in frequency.
+    const truth = shearFrameModes(3, 1e8, 5e4).map((m) => ({ ...m, dampingRatio: 0.01 }));
+    const rec = simulateAmbientRecord({ modes: truth, sampleRateHz: 200, durationS: 1200, seed: 31, snrDb: 30 });
+    const r = identifyModesSsiCov(asRecord(rec.data, 200), { decimateToHz: 50, maxOrder: 30 });
+    expect(r.settings.sampleRateHz).toBe(50);
+    expect(r.modes.length).toBe(3);
+    truth.forEach((t, j) => {
+      expect(Math.abs(r.modes[j].frequencyHz / t.frequencyHz - 1)).toBeLessThan(0.003);
+      expect(mac(r.modes[j].shape, realAsComplex(t.shape))).toBeGreaterThanOrEqual(0.99);
+    });
+    const odd = identifyModesSsiCov(asRecord(rec.data, 200), { decimateToHz: 60, maxOrder: 30, bandsHz: [[0, 1]] });
+    expect(odd.settings.sampleRateHz).toBeCloseTo(200 / 3, 12);
+    expect(odd.warnings.some((w) => w.includes("decimated by 3"))).toBe(true);
+  });
+});
+
 describe("identifyModesSsiCov on two modes 1 % apart", () => {
   // Two modes at 2.00 and 2.02 Hz, ζ = 1 %: half-power bandwidths 0.04 Hz overlap, so the
   // spectral peaks merge; their shapes differ (MAC(φ₁, φ₂) ≈ 0.006), which SSI exploits.
@@ -113,7 +132,8 @@ describe("identifyModesSsiCov validation", () => {
     expect(() => identifyModesSsiCov(ok, { referenceChannels: [2] })).toThrow(RangeError);
     expect(() => identifyModesSsiCov(ok, { maxOrder: 8, blockRows: 3 })).toThrow(/blockRows·references must be ≥ maxOrder/);
     expect(() => identifyModesSsiCov(ok, { maxOrder: 8, bandsHz: [[3, 1]] })).toThrow(/0 ≤ lo < hi \(got \[3, 1\]\)/);
-    expect(() => identifyModesSsiCov(ok, { maxOrder: 8, blockRows: 60 })).toThrow(/samples \(got 2000\)/);
+    expect(() => identifyModesSsiCov(ok, { maxOrder: 8, blockRows: 60 })).toThrow(/samples after decimation \(got 2000\)/);
     expect(() => identifyModesSsiCov(null as unknown as SsiRecord)).toThrow(TypeError);
+    expect(() => identifyModesSsiCov(ok, { maxOrder: 8, decimateToHz: 0 })).toThrow(/decimateToHz must be > 0 \(got 0\)/);
   });
 });
