@@ -34,7 +34,13 @@ async function main(): Promise<void> {
     console.log(`DEMO_USERS ${JSON.stringify(await findDemoUsers())}`);
     return;
   }
-  const knex = knexFactory(knexConfig());
+  const config = knexConfig();
+  const seedDir = path.resolve(__dirname, "..", "db", "seeds");
+  if (!fs.existsSync(seedDir) || !fs.readdirSync(seedDir).some((f) => f.endsWith(".ts"))) {
+    console.log("seeds: none found");
+    return;
+  }
+  const knex = knexFactory(config);
   try {
     const [files] = (await knex.seed.run()) as [string[]];
     console.log(files.length ? `seeded: ${files.map((f) => path.basename(f)).join(", ")}` : "seeds: none found");

@@ -48,14 +48,11 @@ async function main() {
 
   const cfg = devConfig(root);
   const env = childEnv(cfg, { MODEWARDEN_DEMO: "1" });
+  // Leftovers of a launcher that was killed (kill -9, closed terminal) hold our ports.
+  await Promise.all(["app", "worker", "mail"].map((n) => killStale(path.join(cfg.dataDir, "run", `${n}.pid`))));
   for (const [name, p] of [["app", cfg.appPort], ["mail catcher SMTP", cfg.smtpPort], ["mail catcher HTTP", cfg.catcherPort]]) {
-    if (await tcpOpen(p)) {
-      // Maybe a leftover of a killed launcher: try its pid files first.
-      await Promise.all(["app", "worker", "mail"].map((n) => killStale(path.join(cfg.dataDir, "run", `${n}.pid`), root)));
-      if (await tcpOpen(p)) throw new Error(`port ${p} (${name}) is in use; stop that program or choose another port`);
-    }
+    if (await tcpOpen(p)) throw new Error(`port ${p} (${name}) is in use; stop that program or choose another port`);
   }
-  await Promise.all(["app", "worker", "mail"].map((n) => killStale(path.join(cfg.dataDir, "run", `${n}.pid`), root)));
 
   supervisor = new Supervisor({
     runDir: path.join(cfg.dataDir, "run"),
@@ -113,5 +110,12 @@ main().catch((err) => {
   void shutdown(1);
 });
 
-// Keep the event loop alive while the children run.
-setInterval(() => {}, 1 << 30);
+// npm does not pass SIGTERM on through its `sh -c`: when our parent goes away, stop too.
+// The interval also keeps the event loop alive while the children run.
+const parent = process.ppid;
+setInterval(() => {
+  if (process.ppid !== parent && !shuttingDown) {
+    log("stack", "the parent process ended");
+    void shutdown(0);
+  }
+}, 1000);

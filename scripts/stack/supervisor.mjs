@@ -18,23 +18,28 @@ function signalGroup(pid, signal) {
   }
 }
 
-/**
- * Stop a process left behind by an earlier run (its launcher was killed): read its pid file,
- * and if that pid is alive and still runs our command, terminate its group.
- */
-export async function killStale(pidFile, marker) {
-  if (!fs.existsSync(pidFile)) return;
-  const pid = Number(fs.readFileSync(pidFile, "utf8").trim());
-  fs.rmSync(pidFile, { force: true });
-  if (!Number.isInteger(pid) || pid <= 1 || !alive(pid)) return;
-  let cmdline = "";
+/** Kernel start time of a pid (field 22 of /proc/<pid>/stat), or null if it is gone. */
+function startTime(pid) {
   try {
-    cmdline = fs.readFileSync(`/proc/${pid}/cmdline`, "utf8").replace(/\0/g, " ");
+    const stat = fs.readFileSync(`/proc/${pid}/stat`, "utf8");
+    return stat.slice(stat.lastIndexOf(")") + 2).split(" ")[19] ?? null;
   } catch {
-    return;
+    return null;
   }
-  if (!cmdline.includes(marker)) return;
-  log("stack", `stopping a leftover process ${pid} (${marker})`);
+}
+
+/**
+ * Stop a process left behind by an earlier run (its launcher was killed): the pid file holds
+ * "<pid> <start time>", so a recycled pid is never mistaken for ours (next-server rewrites
+ * its command line, so the start time is the identity check).
+ */
+export async function killStale(pidFile) {
+  if (!fs.existsSync(pidFile)) return;
+  const [pidText, started] = fs.readFileSync(pidFile, "utf8").trim().split(" ");
+  fs.rmSync(pidFile, { force: true });
+  const pid = Number(pidText);
+  if (!Number.isInteger(pid) || pid <= 1 || !alive(pid) || startTime(pid) !== started) return;
+  log("stack", `stopping a leftover process ${pid} (${path.basename(pidFile, ".pid")})`);
   signalGroup(pid, "SIGTERM");
   for (let i = 0; i < 100 && alive(pid); i++) await sleep(100);
   if (alive(pid)) signalGroup(pid, "SIGKILL");
@@ -78,7 +83,7 @@ export class Supervisor {
         readline.createInterface({ input: stream }).on("line", (line) => log(name, line));
       }
     }
-    if (child.pid) fs.writeFileSync(this.pidFile(name), String(child.pid));
+    if (child.pid) fs.writeFileSync(this.pidFile(name), `${child.pid} ${startTime(child.pid)}`);
     this.children.set(name, entry);
     return child;
   }
