@@ -16,13 +16,13 @@ import { switchOrganisation, verifyCredentials } from "@/lib/services/accounts/a
 /** Eight hours: a working day; the token is refreshed while the user is active. */
 const SESSION_MAX_AGE_S = 8 * 60 * 60;
 
-export function useSecureCookies(): boolean {
+export function secureCookies(): boolean {
   return env().APP_URL.startsWith("https://");
 }
 
 /** The session cookie's name (proxy.ts and defineRoute read the same cookie). */
 export function sessionCookieName(): string {
-  return `${useSecureCookies() ? "__Secure-" : ""}next-auth.session-token`;
+  return `${secureCookies() ? "__Secure-" : ""}next-auth.session-token`;
 }
 
 /** The client address of a sign-in request (first X-Forwarded-For hop, set by Next's server). */
@@ -42,7 +42,7 @@ interface ModewardenClaims {
 export function authOptions(): NextAuthOptions {
   return {
     secret: env().NEXTAUTH_SECRET,
-    useSecureCookies: useSecureCookies(),
+    useSecureCookies: secureCookies(),
     session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_S },
     pages: { signIn: "/sign-in", error: "/sign-in" },
     providers: [
