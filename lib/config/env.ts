@@ -45,6 +45,16 @@ const Env = z.object({
   MAP_STYLE_URL: z.string().default(""),
   STORAGE_DRIVER: z.enum(["fs", "s3"]).default("fs"),
   LOG_LEVEL: z.enum(["debug", "info", "warn", "error"]).default("info"),
+  /** Largest upload body accepted by POST /api/v1/records, bytes (compressed size as sent); default 64 MiB. */
+  UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).default(64 * 1024 * 1024),
+  /** Largest data part after gzip decompression, bytes; default 256 MiB. */
+  UPLOAD_MAX_DECODED_BYTES: z.coerce.number().int().min(1024).default(256 * 1024 * 1024),
+  /** Uploads accepted per gateway per minute (Redis fixed window); more answer 429 with Retry-After. */
+  UPLOAD_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(120),
+  /** Analysis jobs one worker process runs at once. */
+  ANALYSIS_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
+  /** Seconds between sweeps that re-enqueue records left pending without a live job. */
+  ANALYSIS_SWEEP_INTERVAL_S: z.coerce.number().int().min(5).default(60),
 });
 
 export type Env = z.infer<typeof Env>;
