@@ -12,7 +12,21 @@ import {
 } from "@/lib/services/team/team.service";
 import { checkPasswordResetToken, requestPasswordReset, resetPassword } from "@/lib/services/team/password-reset.service";
 import { makeMember, makeTeam, PASSWORD, unique } from "./support/factories";
-import { linkIn, waitForMail } from "./support/mail";
+import { linksIn, waitForMail as waitForCaught } from "@/tests/helpers/mail";
+import { env } from "@/lib/config/env";
+
+/** The first message to `to` whose subject matches (through the queue, the worker and SMTP). */
+function waitForMail(to: string, subject: RegExp) {
+  return waitForCaught((m) => m.to.includes(to.toLowerCase()) && subject.test(m.subject));
+}
+
+/** The token of the `${APP_URL}${path}/<token>` link of a message. */
+function linkIn(mail: Awaited<ReturnType<typeof waitForMail>>, path: string): { token: string } {
+  const base = `${env().APP_URL.replace(/\/$/, "")}${path}/`;
+  const link = linksIn(mail).find((l) => l.startsWith(base));
+  if (!link) throw new Error(`no ${path} link in the message`);
+  return { token: link.slice(base.length) };
+}
 
 type Team = Awaited<ReturnType<typeof makeTeam>>;
 let team: Team;
@@ -47,7 +61,7 @@ describe("invitations", () => {
     const { invitation } = await inviteMember(team.admin.actor, { email, role: "inspector" });
     expect(invitation).toMatchObject({ email, role: "inspector", acceptedAt: null });
     const mail = await waitForMail(email, /Invitation/);
-    const { token } = linkIn(mail.text, "/invite");
+    const { token } = linkIn(mail, "/invite");
     expect(await findInvitationByToken(token)).toMatchObject({ email, role: "inspector", organisationName: team.org.name, existingAccount: false });
 
     const accepted = await acceptInvitation({ token, displayName: "New Inspector", password: "a-strong-new-password" });
@@ -73,7 +87,7 @@ describe("invitations", () => {
   it("adds an existing account of another organisation only with that account's password", async () => {
     const email = foreign.inspector.email;
     await inviteMember(team.admin.actor, { email, role: "owner" });
-    const { token } = linkIn((await waitForMail(email, /Invitation/)).text, "/invite");
+    const { token } = linkIn(await waitForMail(email, /Invitation/), "/invite");
     expect(await findInvitationByToken(token)).toMatchObject({ existingAccount: true });
     await expect(acceptInvitation({ token, displayName: "x", password: "not-their-password" }))
       .rejects.toMatchObject({ code: "unprocessable", fieldErrors: { password: [expect.any(String)] } });
@@ -116,7 +130,7 @@ describe("password reset", () => {
   it("mails a single-use link that sets a new password", async () => {
     const m = await makeMember(team.org, "inspector");
     expect(await requestPasswordReset({ email: m.email })).toEqual({ ok: true });
-    const { token } = linkIn((await waitForMail(m.email, /Reset/)).text, "/reset");
+    const { token } = linkIn(await waitForMail(m.email, /Reset/), "/reset");
     expect(await checkPasswordResetToken(token)).toEqual({ valid: true });
     await resetPassword({ token, password: "my-reset-password-1" });
     await expect(verifyCredentials({ email: m.email, password: PASSWORD, ip: ip() })).rejects.toMatchObject({ code: "unauthorized" });
