@@ -42,7 +42,7 @@ export interface QualityReport {
 export interface QualityOptions {
   /** Sensor full scale (|a| limit) in the record's unit, > 0; scalar or one per channel. Without it clipping is judged from flat tops at the extremes. */
   fullScale?: number | number[];
-  /** Run of non-finite samples that counts as a gap, integer ≥ 2; default 2. */
+  /** Run of non-finite samples that counts as a gap, integer ≥ 2; default 2. A run of exact zeros of ≥ max(this, 0.1 s) is a zero-filled gap. */
   gapMinSamples?: number;
   /** Longest run of identical values accepted, seconds > 0; default 1 s [practice]. */
   flatRunS?: number;
@@ -104,7 +104,8 @@ export function screenRecord(data: ReadonlyArray<ArrayLike<number>>, channels: s
   const flatRun = Math.max(2, Math.round(flatRunS * sampleRateHz));
   const report = data.map((x, c) => {
     const fs = fullScale === undefined ? undefined : typeof fullScale === "number" ? fullScale : fullScale[c];
-    const q = screenChannel(x, channels[c], { fullScale: fs, gapMin, flatRun, minRms, spikeSigma });
+    const zeroGap = Math.max(gapMin, Math.round(0.1 * sampleRateHz));
+    const q = screenChannel(x, channels[c], { fullScale: fs, gapMin, zeroGap, flatRun, minRms, spikeSigma });
     const hist = options.historyRms?.[c];
     if (hist != null && hist > 0 && q.rms > 0 && (q.rms > hist * historyFactor || q.rms < hist / historyFactor)) {
       q.flags.push("rms_out_of_history");
@@ -134,6 +135,7 @@ function verdictOf(report: ChannelQuality[]): QualityVerdict {
 interface ChannelRules {
   fullScale?: number;
   gapMin: number;
+  zeroGap: number;
   flatRun: number;
   minRms: number;
   spikeSigma: number;
@@ -145,6 +147,7 @@ function screenChannel(x: ArrayLike<number>, channel: string, r: ChannelRules): 
   const notes: string[] = [];
   let nonFinite = 0, gapRun = 0, longestGap = 0;
   let flatLen = 1, longestFlat = 1;
+  let zeroRun = 0, longestZeroRun = 0;
   let sum = 0, sum2 = 0, count = 0, max = -Infinity, min = Infinity;
   for (let i = 0; i < n; i++) {
     const v = x[i];
@@ -156,6 +159,10 @@ function screenChannel(x: ArrayLike<number>, channel: string, r: ChannelRules): 
       continue;
     }
     gapRun = 0;
+    if (v === 0) {
+      zeroRun++;
+      if (zeroRun > longestZeroRun) longestZeroRun = zeroRun;
+    } else zeroRun = 0;
     if (i > 0 && v === x[i - 1]) {
       flatLen++;
       if (flatLen > longestFlat) longestFlat = flatLen;
@@ -174,9 +181,14 @@ function screenChannel(x: ArrayLike<number>, channel: string, r: ChannelRules): 
   }
   if (longestGap >= r.gapMin) {
     flags.push("gap");
-    notes.push(`gap of ${longestGap} samples`);
+    notes.push(`gap of ${longestGap} non-finite samples`);
+  } else if (longestZeroRun >= r.zeroGap && rms > r.minRms) {
+    // A live accelerometer never reads exactly 0 for 0.1 s: a zero-filled transmission gap.
+    flags.push("gap");
+    notes.push(`gap of ${longestZeroRun} zero-filled samples`);
   }
-  if (count > 0 && (longestFlat >= r.flatRun || rms <= r.minRms)) {
+  const zeroFilled = flags.includes("gap") && longestGap < r.gapMin;
+  if (count > 0 && !zeroFilled && (longestFlat >= r.flatRun || rms <= r.minRms)) {
     flags.push("flat_line");
     notes.push(rms <= r.minRms ? `RMS ${rms.toPrecision(3)} ≤ ${r.minRms} (dead channel)` : `${longestFlat} identical consecutive samples`);
   }
@@ -193,7 +205,7 @@ function screenChannel(x: ArrayLike<number>, channel: string, r: ChannelRules): 
       notes.push(`${spikes} sample(s) beyond ${r.spikeSigma} robust σ (MAD rule)`);
     }
   }
-  return { channel, flags, rms, nonFiniteCount: nonFinite, longestGapSamples: longestGap, clippedSamples: clipped, longestFlatRunSamples: longestFlat, spikeCount: spikes, humHz: [], notes };
+  return { channel, flags, rms, nonFiniteCount: nonFinite, longestGapSamples: Math.max(longestGap, zeroFilled ? longestZeroRun : 0), clippedSamples: clipped, longestFlatRunSamples: longestFlat, spikeCount: spikes, humHz: [], notes };
 }
 
 /** With a full scale: samples at ≥ 99 % of it. Without: samples in runs of ≥ 3 equal values at the max or min. */
