@@ -2,10 +2,13 @@
  * GET /api/health — liveness of the app and its two dependencies, for launchers and
  * monitors. No session needed. 200 {"db":"ok","redis":"ok",...} or 503 naming the failing part.
  */
-import { connection, NextResponse } from "next/server";
+import { NextResponse } from "next/server";
 import { db } from "@/lib/db/knex";
 import { createRedisConnection } from "@/lib/jobs/connection";
 import pkg from "@/package.json";
+
+/** Rendered per request, never at build time (the build has no database). */
+export const dynamic = "force-dynamic";
 
 const TIMEOUT_MS = 2000;
 
@@ -39,7 +42,6 @@ async function checkRedis(): Promise<void> {
 type Part = "ok" | "error";
 
 export async function GET(): Promise<NextResponse> {
-  await connection();
   const [dbResult, redisResult] = await Promise.allSettled([checkDb(), checkRedis()]);
   const body: { db: Part; redis: Part; version: string; time: string; errors?: Record<string, string> } = {
     db: dbResult.status === "fulfilled" ? "ok" : "error",
