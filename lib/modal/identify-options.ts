@@ -75,6 +75,7 @@ export function validateIdentifyInput(record: ModalRecord, options: IdentifyOpti
   if (typeof options !== "object" || options === null) throw new TypeError(`options must be an object (got ${describe(options)})`);
   if (options.nperseg !== undefined) {
     assertInteger(options.nperseg, "nperseg", 8, n);
+    if ((options.nperseg & (options.nperseg - 1)) !== 0) throw new RangeError(`nperseg must be a power of two (got ${options.nperseg})`);
   }
   const overlap = options.overlap ?? 0.5;
   assertInRange(overlap, "overlap", 0, 0.9);

@@ -141,7 +141,10 @@ function fddMode(fdd: ReturnType<typeof decomposeCsdMatrix>, p: FddPeak, duratio
   const v = singularVector(fdd, p.line, p.rank);
   const efdd = estimateEfdd(fdd, p.line, v);
   const hp = halfPowerDamping(fdd.singularValues[p.rank], fdd.lineSpacingHz, p.line);
-  const frequencyHz = efdd && Math.abs(efdd.frequencyHz - p.frequencyHz) <= 2 * fdd.lineSpacingHz ? efdd.frequencyHz : p.frequencyHz;
+  // EFDD's zero-crossing frequency uses the whole bell and scatters less than the peak line;
+  // it is trusted when it falls inside its own bell.
+  const inBell = efdd !== null && efdd.frequencyHz >= efdd.bellRange[0] * fdd.lineSpacingHz && efdd.frequencyHz <= efdd.bellRange[1] * fdd.lineSpacingHz;
+  const frequencyHz = efdd && inBell ? efdd.frequencyHz : p.frequencyHz;
   const dampingRatio = efdd ? efdd.dampingRatio : hp ? hp.dampingRatio : null;
   const dampingMethod = efdd ? "efdd" : hp ? "half-power" : null;
   const bandwidthLines = dampingRatio === null ? null : (2 * dampingRatio * frequencyHz) / fdd.lineSpacingHz;
