@@ -2,7 +2,11 @@
 
 import { useEffect, useState } from "react";
 import { Layer, Source } from "react-map-gl/maplibre";
-import { BASEMAP_COLORS, loadBasemap, type BasemapData } from "./basemap";
+import { BASEMAP_COLORS, graticule, loadBasemap, type BasemapData } from "./basemap";
+
+// 10° lines at every zoom; 1° lines once a region fills the view.
+const GRATICULE_10 = graticule(10);
+const GRATICULE_1 = graticule(1);
 
 /** Land fill and country borders from the bundled Natural Earth data (offline style only). */
 export function BasemapLayers({ beforeId }: { beforeId?: string }) {
@@ -34,6 +38,18 @@ export function BasemapLayers({ beforeId }: { beforeId?: string }) {
           type="line"
           beforeId={beforeId}
           paint={{ "line-color": BASEMAP_COLORS.border, "line-width": 0.7, "line-dasharray": [3, 2] }}
+        />
+      </Source>
+      <Source id="basemap-graticule-10" type="geojson" data={GRATICULE_10}>
+        <Layer id="basemap-graticule-10-line" type="line" beforeId={beforeId} paint={{ "line-color": BASEMAP_COLORS.graticule, "line-width": 0.6 }} />
+      </Source>
+      <Source id="basemap-graticule-1" type="geojson" data={GRATICULE_1}>
+        <Layer
+          id="basemap-graticule-1-line"
+          type="line"
+          minzoom={5}
+          beforeId={beforeId}
+          paint={{ "line-color": BASEMAP_COLORS.graticule, "line-width": 0.5, "line-dasharray": [2, 3] }}
         />
       </Source>
     </>

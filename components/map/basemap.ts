@@ -12,6 +12,7 @@ export const BASEMAP_COLORS = {
   land: "#f8f7f1",
   border: "#c2c8c4",
   coast: "#a9b4b8",
+  graticule: "#c9d3d8",
 } as const;
 
 /**
@@ -53,6 +54,25 @@ function unwrapGeometry(g: Geometry): Geometry {
     default:
       return g;
   }
+}
+
+/**
+ * Parallels and meridians every `stepDeg` degrees (lines sampled every degree so they follow
+ * the Web Mercator projection), for orientation where no land edge is in view.
+ */
+export function graticule(stepDeg: number): FeatureCollection {
+  const features: FeatureCollection["features"] = [];
+  for (let lon = -180; lon <= 180; lon += stepDeg) {
+    const coords: Position[] = [];
+    for (let lat = -85; lat <= 85; lat += 1) coords.push([lon, lat]);
+    features.push({ type: "Feature", properties: { kind: "meridian", value: lon }, geometry: { type: "LineString", coordinates: coords } });
+  }
+  for (let lat = -80; lat <= 80; lat += stepDeg) {
+    const coords: Position[] = [];
+    for (let lon = -180; lon <= 180; lon += 1) coords.push([lon, lat]);
+    features.push({ type: "Feature", properties: { kind: "parallel", value: lat }, geometry: { type: "LineString", coordinates: coords } });
+  }
+  return { type: "FeatureCollection", features };
 }
 
 export interface BasemapData {

@@ -7,6 +7,7 @@ import MapGL, {
   Layer,
   NavigationControl,
   Popup,
+  ScaleControl,
   Source,
   type MapLayerMouseEvent,
   type MapRef,
@@ -27,6 +28,8 @@ interface Props {
   /** A MapLibre style URL from the server configuration (MAP_STYLE_URL); empty → offline basemap. */
   styleUrl?: string;
   className?: string;
+  /** Closest zoom when fitting the assets (a single asset would otherwise fill the view). */
+  maxZoom?: number;
 }
 
 type Bounds = [[number, number], [number, number]];
@@ -75,7 +78,7 @@ function toFeatures(assets: AssetSummary[]): FeatureCollection<Point> {
  * link when a marker is clicked. `data-rendered-assets` on the wrapper reports how many distinct
  * assets MapLibre actually drew (read back by the browser tests).
  */
-export function PortfolioMap({ assets, styleUrl, className }: Props) {
+export function PortfolioMap({ assets, styleUrl, className, maxZoom = 10 }: Props) {
   const mapRef = useRef<MapRef>(null);
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const [rendered, setRendered] = useState<number | null>(null);
@@ -122,7 +125,7 @@ export function PortfolioMap({ assets, styleUrl, className }: Props) {
         ref={mapRef}
         mapStyle={style}
         workerUrl={workerUrl}
-        initialViewState={bounds ? { bounds, fitBoundsOptions: { padding: 48, maxZoom: 10 } } : { longitude: 0, latitude: 20, zoom: 1 }}
+        initialViewState={bounds ? { bounds, fitBoundsOptions: { padding: 48, maxZoom } } : { longitude: 0, latitude: 20, zoom: 1 }}
         interactiveLayerIds={[MARKER_LAYER]}
         onClick={onClick}
         onMouseEnter={() => setCursor("pointer")}
@@ -148,6 +151,7 @@ export function PortfolioMap({ assets, styleUrl, className }: Props) {
           />
         </Source>
         <NavigationControl position="top-right" showCompass={false} />
+        <ScaleControl position="bottom-right" unit="metric" maxWidth={120} />
         {selected ? (
           <Popup
             longitude={selected.longitude}

@@ -5,11 +5,9 @@
 import fs from "node:fs";
 import path from "node:path";
 import type { Page } from "playwright-core";
-import { expect } from "vitest";
 
 
 /** The five demo assets of PRODUCT.md's scenario (names chosen by the seed, see db/seeds). */
-export const DEMO_ASSET_COUNT = 5;
 
 export const SCREEN_DIR = path.resolve(".tmp/screens");
 
@@ -77,7 +75,7 @@ export async function waitForMail(catcherUrl: string, to: string, timeoutMs = 60
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const res = await fetch(`${catcherUrl}/messages`);
-    expect(res.ok).toBe(true);
+    if (!res.ok) throw new Error(`mail catcher answered ${res.status}`);
     const body = (await res.json()) as CaughtMail[] | { messages: CaughtMail[] };
     const list = Array.isArray(body) ? body : body.messages;
     const hit = list.find((m) => m.to.map((t) => t.toLowerCase()).includes(to.toLowerCase()));

@@ -16,7 +16,7 @@ type SortKey = "name" | "kind" | "condition" | "mainDimensionM" | "channelCount"
 const COLUMNS: Array<{ key: SortKey; label: string; numeric?: boolean }> = [
   { key: "name", label: "Asset" },
   { key: "kind", label: "Kind" },
-  { key: "mainDimensionM", label: "Span / height", numeric: true },
+  { key: "mainDimensionM", label: "Size", numeric: true },
   { key: "condition", label: "Condition" },
   { key: "channelCount", label: "Channels", numeric: true },
   { key: "updatedAt", label: "Updated" },
@@ -131,7 +131,7 @@ export function AssetTable({ assets, loading }: { assets: AssetSummary[]; loadin
                 <ConditionBadge condition={a.condition} />
               </Td>
               <Td className="text-right tabular-nums">{a.channelCount}</Td>
-              <Td className="text-muted tabular-nums">{formatDate(a.updatedAt)}</Td>
+              <Td className="whitespace-nowrap text-muted tabular-nums">{formatDate(a.updatedAt)}</Td>
             </tr>
           ))}
           {rows.length === 0 ? (

@@ -11,6 +11,6 @@ const PortfolioMap = dynamic(() => import("@/components/map/portfolio-map").then
 /** The asset on the map, drawn with the Portfolio's marker and legend. */
 export function AssetLocationMap({ asset, styleUrl }: { asset: AssetSummary; styleUrl: string }) {
   return (
-    <PortfolioMap assets={[asset]} styleUrl={styleUrl} className="relative h-[380px] overflow-hidden rounded-lg border border-line" />
+    <PortfolioMap assets={[asset]} styleUrl={styleUrl} maxZoom={7} className="relative h-[380px] overflow-hidden rounded-lg border border-line" />
   );
 }

@@ -17,7 +17,7 @@ export default async function SensorsPage({ params }: { params: Promise<{ assetI
   const channels = await orNotFound(listChannels(actor, assetId));
   return (
     <Panel title="Sensor channels" bodyClassName="p-0">
-      <p className="px-4 pt-3 text-xs text-muted">
+      <p className="px-3 pt-3 text-xs text-muted">
         Positions in metres in the asset&apos;s own frame. Codes are the column names gateways use in uploads and must be unique on the asset.
       </p>
       <ChannelTable assetId={assetId} channels={channels} canEdit={can(actor.role, "channel:write")} />

@@ -44,7 +44,7 @@ function SelectCell({ formId, name, label, defaultValue, options, errors }: {
   formId: string; name: string; label: string; defaultValue: string; options: readonly string[]; errors?: string[];
 }) {
   return (
-    <Td className="align-top">
+    <Td className="min-w-24 align-top">
       <select form={formId} name={name} aria-label={label} defaultValue={defaultValue} aria-invalid={Boolean(errors?.length)} className={cell}>
         {options.map((o) => (
           <option key={o} value={o}>
