@@ -132,3 +132,15 @@ export interface ModeAssignment {
   frequencyDeviation: number | null;
   cost: number | null;
 }
+
+/** JSON form of a record for the API. */
+export interface RecordJson extends Omit<VibrationRecord, "startedAt" | "createdAt" | "updatedAt" | "blobKey"> {
+  startedAt: string;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export function toRecordJson(r: VibrationRecord): RecordJson {
+  const { blobKey: _blobKey, ...rest } = r;
+  return { ...rest, startedAt: r.startedAt.toISOString(), createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString() };
+}

@@ -1,0 +1,85 @@
+/**
+ * The `analysis` queue: payload schema, job id and enqueue helpers. One job per record,
+ * id `analyse-<recordId>`, so a second enqueue of a waiting or running record is ignored
+ * by BullMQ; the work itself is an upsert keyed by (record, settings version), so a retry
+ * is harmless. Completed jobs are removed at once, which frees the id for a later reprocess
+ * or sweep; failed ones are kept for inspection until replaced.
+ */
+import { Queue, type Job, type JobsOptions } from "bullmq";
+import type { Redis } from "ioredis";
+import { z } from "zod";
+import { createRedisConnection } from "./connection";
+
+export const ANALYSIS_QUEUE = "analysis";
+
+export const AnalysisJob = z.strictObject({ recordId: z.uuid() });
+export type AnalysisJob = z.infer<typeof AnalysisJob>;
+
+/** Four attempts, 5 s then 10 s then 20 s apart (exponential backoff). */
+export const ANALYSIS_JOB_OPTIONS: JobsOptions = {
+  attempts: 4,
+  backoff: { type: "exponential", delay: 5000 },
+  removeOnComplete: true,
+  removeOnFail: { count: 5000 },
+};
+
+/** BullMQ job ids are strings without ':'; uuids qualify. */
+export const analysisJobId = (recordId: string): string => `analyse-${recordId}`;
+
+const LIVE_STATES = new Set(["active", "waiting", "waiting-children", "delayed", "prioritized"]);
+
+interface AnalysisQueueState { connection: Redis | null; queue: Queue | null }
+const globalForAnalysis = globalThis as unknown as { __modewardenAnalysisQueue?: AnalysisQueueState };
+
+function state(): AnalysisQueueState {
+  globalForAnalysis.__modewardenAnalysisQueue ??= { connection: null, queue: null };
+  return globalForAnalysis.__modewardenAnalysisQueue;
+}
+
+/** The process-wide producer of the analysis queue. */
+export function getAnalysisQueue(): Queue {
+  const s = state();
+  if (!s.queue) {
+    s.connection ??= createRedisConnection();
+    s.queue = new Queue(ANALYSIS_QUEUE, { connection: s.connection, defaultJobOptions: ANALYSIS_JOB_OPTIONS });
+  }
+  return s.queue;
+}
+
+/**
+ * Queue the analysis of a record. With `replaceFinished`, a failed (or kept completed) job
+ * of the same id is removed first so the record runs again (sweeper, retry button).
+ * @returns the job id and whether a new job was added (false: one is already live).
+ */
+export async function enqueueAnalysis(recordId: string, options: { replaceFinished?: boolean } = {}): Promise<{ jobId: string; added: boolean }> {
+  const { recordId: id } = AnalysisJob.parse({ recordId });
+  const jobId = analysisJobId(id);
+  const queue = getAnalysisQueue();
+  const existing = await queue.getJob(jobId);
+  if (existing) {
+    const st = await existing.getState();
+    if (LIVE_STATES.has(st)) return { jobId, added: false };
+    if (!options.replaceFinished) return { jobId, added: false };
+    await existing.remove();
+  }
+  await queue.add("analyse", { recordId: id } satisfies AnalysisJob, { jobId });
+  return { jobId, added: true };
+}
+
+/** Whether the record has a job waiting, delayed or running. */
+export async function hasLiveAnalysisJob(recordId: string): Promise<boolean> {
+  const job: Job | undefined = await getAnalysisQueue().getJob(analysisJobId(recordId));
+  if (!job) return false;
+  return LIVE_STATES.has(await job.getState());
+}
+
+/** Close the producer and its connection (scripts, tests, worker shutdown). */
+export async function closeAnalysisQueue(): Promise<void> {
+  const s = state();
+  const q = s.queue;
+  const conn = s.connection;
+  s.queue = null;
+  s.connection = null;
+  if (q) await q.close();
+  if (conn) await conn.quit().catch(() => conn.disconnect());
+}

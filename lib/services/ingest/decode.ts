@@ -1,0 +1,141 @@
+/**
+ * The data part of an upload → one Float64Array per channel, in the record's units.
+ * Shared by the upload (validation before anything is kept) and the analysis worker
+ * (decoding the stored blob). Format rules are those of the upload contract:
+ *  - text/csv: a header row of channel codes (the meta's order), then one row per sample;
+ *  - application/octet-stream: float32 little-endian, interleaved sample by sample;
+ *  - either gzip-compressed, recognised by the gzip header (1f 8b 08).
+ */
+import { promisify } from "node:util";
+import { gunzip } from "node:zlib";
+import { AppError } from "@/lib/http/errors";
+import type { DataFormat } from "@/lib/domain/records";
+
+const gunzipAsync = promisify(gunzip);
+
+/** Fewest samples per channel an upload may carry (the identification engine's minimum). */
+export const MIN_SAMPLES = 256;
+
+export interface DecodedSamples {
+  /** One array per channel, in the meta's channel order. */
+  data: Float64Array[];
+  sampleCount: number;
+}
+
+const invalid = (message: string, rule: string, details: Record<string, unknown> = {}) =>
+  new AppError("unprocessable", message, { details: { field: "data", rule, ...details }, fieldErrors: { data: [message] } });
+
+/** The data format a part's Content-Type names, or 415. */
+export function dataFormatOf(mimeType: string): DataFormat {
+  const t = mimeType.split(";")[0].trim().toLowerCase();
+  if (t === "text/csv") return "csv";
+  if (t === "application/octet-stream") return "f32le";
+  throw new AppError("unsupported_media_type", `The data part must be text/csv or application/octet-stream (got ${t || "none"}).`, {
+    details: { field: "data", rule: "data_type", got: t },
+  });
+}
+
+const isGzip = (b: Uint8Array) => b.length >= 3 && b[0] === 0x1f && b[1] === 0x8b && b[2] === 0x08;
+
+/**
+ * Undo gzip when the bytes start with a gzip header. For float32 data a failed inflate
+ * means the bytes were raw samples after all (a valid gzip stream with matching CRC cannot
+ * arise from sample values by chance); for CSV it is a broken upload (400).
+ * @throws AppError 413 when the inflated data exceeds `maxDecodedBytes`, 400 for broken gzip.
+ */
+export async function inflateIfGzip(bytes: Buffer, format: DataFormat, maxDecodedBytes: number): Promise<Buffer> {
+  if (!isGzip(bytes)) return bytes;
+  try {
+    return await gunzipAsync(bytes, { maxOutputLength: maxDecodedBytes });
+  } catch (e) {
+    if (typeof e === "object" && e !== null && (e as { code?: unknown }).code === "ERR_BUFFER_TOO_LARGE") {
+      throw new AppError("payload_too_large", `The data exceeds ${maxDecodedBytes} bytes once decompressed.`, {
+        details: { field: "data", rule: "max_decoded_bytes", limitBytes: maxDecodedBytes },
+      });
+    }
+    if (format === "f32le") return bytes;
+    throw new AppError("bad_request", "The data part starts like gzip but does not decompress.", {
+      details: { field: "data", rule: "gzip" }, fieldErrors: { data: ["The data part starts like gzip but does not decompress."] },
+    });
+  }
+}
+
+/** Decode stored or uploaded (already inflated) bytes. @throws AppError 422 naming the rule. */
+export function decodeSamples(bytes: Uint8Array, format: DataFormat, channels: string[]): DecodedSamples {
+  const out = format === "csv" ? decodeCsv(bytes, channels) : decodeFloat32(bytes, channels.length);
+  if (out.sampleCount < MIN_SAMPLES) {
+    throw invalid(`The record has ${out.sampleCount} samples per channel; at least ${MIN_SAMPLES} are needed.`, "too_short", {
+      samples: out.sampleCount, minSamples: MIN_SAMPLES,
+    });
+  }
+  return out;
+}
+
+function decodeFloat32(bytes: Uint8Array, nch: number): DecodedSamples {
+  const frame = 4 * nch;
+  if (bytes.length === 0 || bytes.length % frame !== 0) {
+    throw invalid(`The float32 data has ${bytes.length} bytes, not a whole number of ${nch}-channel samples (${frame} bytes each).`, "ragged_rows", {
+      bytes: bytes.length, bytesPerSample: frame,
+    });
+  }
+  const n = bytes.length / frame;
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const data = Array.from({ length: nch }, () => new Float64Array(n));
+  for (let k = 0, o = 0; k < n; k++) {
+    for (let c = 0; c < nch; c++, o += 4) {
+      const v = view.getFloat32(o, true);
+      if (!Number.isFinite(v)) {
+        throw invalid(`Sample ${k + 1} of channel ${c + 1} is not a finite number.`, "non_finite", { sample: k + 1, channelIndex: c });
+      }
+      data[c][k] = v;
+    }
+  }
+  return { data, sampleCount: n };
+}
+
+function decodeCsv(bytes: Uint8Array, channels: string[]): DecodedSamples {
+  const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8");
+  const nch = channels.length;
+  let pos = 0;
+  const nextLine = (): string | null => {
+    if (pos >= text.length) return null;
+    let end = text.indexOf("\n", pos);
+    if (end < 0) end = text.length;
+    let line = text.slice(pos, end);
+    if (line.endsWith("\r")) line = line.slice(0, -1);
+    pos = end + 1;
+    return line;
+  };
+  const header = (nextLine() ?? "").replace(/^\uFEFF/, "").split(",").map((s) => s.trim());
+  if (header.length !== nch || header.some((h, i) => h !== channels[i])) {
+    throw invalid(`The CSV header (${header.join(", ")}) must list the meta's channels in order (${channels.join(", ")}).`, "channel_mismatch", {
+      expected: channels, got: header,
+    });
+  }
+  // Rows are counted first so each channel is one allocation (records run to millions of values).
+  const bodyStart = pos;
+  let rows = 0;
+  for (let i = bodyStart; i < text.length; i++) if (text.charCodeAt(i) === 10) rows++;
+  if (text.length > bodyStart && text.charCodeAt(text.length - 1) !== 10) rows++;
+  const data = Array.from({ length: nch }, () => new Float64Array(rows));
+  let k = 0;
+  let lineNo = 1;
+  for (let line = nextLine(); line !== null; line = nextLine()) {
+    lineNo++;
+    if (line.trim() === "" && pos >= text.length) break; // one trailing blank line
+    const cells = line.split(",");
+    if (cells.length !== nch) {
+      throw invalid(`CSV line ${lineNo} has ${cells.length} values; the header has ${nch}.`, "ragged_rows", { line: lineNo, values: cells.length, expected: nch });
+    }
+    for (let c = 0; c < nch; c++) {
+      const s = cells[c];
+      const v = s.trim() === "" ? Number.NaN : Number(s);
+      if (!Number.isFinite(v)) {
+        throw invalid(`CSV line ${lineNo}, column ${channels[c]}: '${s.slice(0, 20)}' is not a finite number.`, "non_finite", { line: lineNo, channel: channels[c] });
+      }
+      data[c][k] = v;
+    }
+    k++;
+  }
+  return { data: k === rows ? data : data.map((x) => x.slice(0, k)), sampleCount: k };
+}

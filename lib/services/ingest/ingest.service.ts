@@ -1,0 +1,153 @@
+/**
+ * Gateway upload (PRODUCT.md §Upload contract): parse and check everything first, keep
+ * nothing from a refused upload, then store the samples once (content-addressed), write the
+ * record and queue its analysis. Idempotent on (gateway, recordId) with the SHA-256 of the
+ * (decompressed) data part: the same record again answers 200 with the stored one, other
+ * content under the same recordId answers 409.
+ */
+import { env } from "@/lib/config/env";
+import { db } from "@/lib/db/knex";
+import { countRecordsWithBlob, findRecordByGatewayRecordId, insertRecord, updateRecordStatus } from "@/lib/db/repos/record.repo";
+import { listChannelsOfAsset } from "@/lib/db/repos/sensor-channel.repo";
+import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
+import type { VibrationRecord } from "@/lib/domain/records";
+import { AppError, isAppError } from "@/lib/http/errors";
+import { fieldErrorsOf } from "@/lib/http/validation";
+import { enqueueAnalysis } from "@/lib/jobs/analysis";
+import { blobStore, contentKey, sha256Hex } from "@/lib/storage";
+import type { DeviceActor } from "@/lib/services/assets/gateway.service";
+import { dataFormatOf, decodeSamples, inflateIfGzip } from "./decode";
+import { readUploadParts } from "./multipart";
+import { consumeUploadAllowance } from "./rate-limit";
+import { UploadRecordMeta } from "./schemas";
+
+export interface UploadRequest {
+  body: ReadableStream<Uint8Array> | null;
+  contentType: string | null;
+  /** Content-Length when declared (refused early when over the limit). */
+  contentLength: number | null;
+}
+
+export interface IngestOutcome {
+  /** `queued`: new record (202); `duplicate`: the same record was already stored (200). */
+  outcome: "queued" | "duplicate";
+  record: VibrationRecord;
+}
+
+/**
+ * Periods of the lowest tracked mode a record must span to be worth identifying [practice]:
+ * a Welch segment of ≥ 10 periods (so the peak sits ≥ 10 lines above DC) and ≥ 20 averages
+ * at 50 % overlap (random error ≈ 1/√20 ≈ 22 % per line, Bendat & Piersol §8.5) need
+ * (20 + 1)/2 × 10 = 105 periods.
+ */
+export const MIN_PERIODS_OF_LOWEST_MODE = 105;
+
+export async function ingestRecord(device: DeviceActor, req: UploadRequest): Promise<IngestOutcome> {
+  await consumeUploadAllowance(device.gatewayId);
+  const e = env();
+  const parts = await readUploadParts(req.body, req.contentType, req.contentLength, e.UPLOAD_MAX_BYTES);
+  const rawMeta = parseMetaJson(parts.meta);
+  const claimedAsset = (rawMeta as { assetId?: unknown }).assetId;
+  if (claimedAsset !== undefined && claimedAsset !== device.assetId) {
+    throw new AppError("forbidden", "This gateway is not assigned to that asset.", { details: { field: "meta.assetId", rule: "asset_assigned" } });
+  }
+  const format = dataFormatOf(parts.data.mimeType);
+  const parsed = UploadRecordMeta.safeParse(rawMeta);
+  if (!parsed.success) {
+    throw new AppError("unprocessable", "The meta part has invalid fields.", {
+      details: { field: "meta", rule: "meta_schema" }, fieldErrors: prefix("meta", fieldErrorsOf(parsed.error)),
+    });
+  }
+  const meta = parsed.data;
+  await assertChannelsConfigured(device.assetId, meta.channels);
+  const bytes = await inflateIfGzip(parts.data.bytes, format, e.UPLOAD_MAX_DECODED_BYTES);
+  const decoded = decodeSamples(bytes, format, meta.channels);
+  const durationS = decoded.sampleCount / meta.sampleRateHz;
+  await assertLongEnough(device.assetId, durationS);
+
+  const hash = sha256Hex(bytes);
+  const existing = await findRecordByGatewayRecordId(db(), device.gatewayId, meta.recordId);
+  if (existing) return sameOrConflict(existing, hash);
+
+  const blobKey = contentKey(hash);
+  let record: VibrationRecord;
+  try {
+    record = await db().transaction(async (trx) => {
+      const inserted = await insertRecord(trx, {
+        organisationId: device.organisationId, assetId: device.assetId, gatewayId: device.gatewayId,
+        gatewayRecordId: meta.recordId, startedAt: new Date(meta.startedAt), sampleRateHz: meta.sampleRateHz,
+        channels: meta.channels, units: meta.units, temperatureC: meta.temperatureC, environment: meta.environment ?? {},
+        contentHash: hash, blobKey, dataFormat: format, byteSize: bytes.length, sampleCount: decoded.sampleCount, durationS,
+      });
+      // The blob is written before the commit: a failed write rolls the row back.
+      await blobStore().put(blobKey, bytes);
+      return inserted;
+    });
+  } catch (err) {
+    if (!(isAppError(err) && err.code === "conflict")) throw err;
+    // Lost a race with the same (gateway, recordId).
+    const winner = await findRecordByGatewayRecordId(db(), device.gatewayId, meta.recordId);
+    if (!winner) throw err;
+    if (winner.contentHash !== hash && (await countRecordsWithBlob(db(), blobKey)) === 0) await blobStore().delete(blobKey);
+    return sameOrConflict(winner, hash);
+  }
+  return { outcome: "queued", record: await queueRecord(record) };
+}
+
+/** Queue the analysis; PostgreSQL stays the truth: if Redis is down the record stays `received` for the sweeper. */
+async function queueRecord(record: VibrationRecord): Promise<VibrationRecord> {
+  try {
+    await enqueueAnalysis(record.id);
+  } catch {
+    return record;
+  }
+  return (await updateRecordStatus(db(), record.id, { status: "queued" }, ["received"])) ?? record;
+}
+
+function sameOrConflict(existing: VibrationRecord, hash: string): IngestOutcome {
+  if (existing.contentHash === hash) return { outcome: "duplicate", record: existing };
+  throw new AppError("conflict", `Record '${existing.gatewayRecordId}' was already uploaded with other content.`, {
+    details: { field: "meta.recordId", rule: "record_id_unique", recordId: existing.id },
+  });
+}
+
+function parseMetaJson(text: string): unknown {
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch {
+    throw new AppError("bad_request", "The meta part is not valid JSON.", { details: { field: "meta", rule: "json" }, fieldErrors: { meta: ["Not valid JSON."] } });
+  }
+  if (typeof value !== "object" || value === null || Array.isArray(value)) {
+    throw new AppError("bad_request", "The meta part must be a JSON object.", { details: { field: "meta", rule: "json_object" }, fieldErrors: { meta: ["Must be a JSON object."] } });
+  }
+  return value;
+}
+
+async function assertChannelsConfigured(assetId: string, codes: string[]): Promise<void> {
+  const configured = new Set((await listChannelsOfAsset(db(), assetId)).filter((c) => c.active && c.quantity === "acceleration").map((c) => c.code));
+  const unknown = codes.filter((c) => !configured.has(c));
+  if (unknown.length) {
+    const message = `Channels not configured (or inactive) on the asset: ${unknown.join(", ")}.`;
+    throw new AppError("unprocessable", message, {
+      details: { field: "meta.channels", rule: "channels_configured", unknown }, fieldErrors: { "meta.channels": [message] },
+    });
+  }
+}
+
+async function assertLongEnough(assetId: string, durationS: number): Promise<void> {
+  const tracked = await listTrackedModesOfAsset(db(), assetId);
+  if (tracked.length === 0) return;
+  const lowestHz = Math.min(...tracked.map((t) => t.bandLowHz));
+  const neededS = MIN_PERIODS_OF_LOWEST_MODE / lowestHz;
+  if (durationS < neededS) {
+    const message = `The record lasts ${durationS.toFixed(1)} s; identifying the lowest tracked mode (from ${lowestHz} Hz) needs at least ${neededS.toFixed(1)} s (${MIN_PERIODS_OF_LOWEST_MODE} periods).`;
+    throw new AppError("unprocessable", message, {
+      details: { field: "data", rule: "too_short", durationS, minDurationS: neededS }, fieldErrors: { data: [message] },
+    });
+  }
+}
+
+function prefix(p: string, errors: Record<string, string[]>): Record<string, string[]> {
+  return Object.fromEntries(Object.entries(errors).map(([k, v]) => [k === "_form" ? p : `${p}.${k}`, v]));
+}

@@ -1,0 +1,119 @@
+/**
+ * Streaming multipart/form-data reader of the upload route (busboy). Reads the two parts
+ * of the contract, `meta` and `data`, counting bytes as they arrive: past the limit the
+ * request is abandoned with 413, so nothing beyond the limit is ever buffered.
+ */
+import { Readable, Transform } from "node:stream";
+import busboy from "busboy";
+import { AppError } from "@/lib/http/errors";
+
+export interface UploadParts {
+  /** The `meta` part as UTF-8 text. */
+  meta: string;
+  data: { bytes: Buffer; mimeType: string };
+}
+
+/** Largest `meta` part, bytes. */
+export const META_MAX_BYTES = 64 * 1024;
+
+const bad = (message: string, rule: string, field?: string) =>
+  new AppError("bad_request", message, { details: { rule, ...(field ? { field } : {}) }, ...(field ? { fieldErrors: { [field]: [message] } } : {}) });
+const tooLarge = (limit: number) =>
+  new AppError("payload_too_large", `The upload exceeds ${limit} bytes.`, { details: { rule: "max_bytes", limitBytes: limit } });
+
+/**
+ * Read `meta` and `data` from a multipart body.
+ * @throws AppError 415 (not multipart), 413 (over `maxBytes`), 400 (broken body, missing,
+ *   repeated or unknown part).
+ */
+export async function readUploadParts(
+  body: ReadableStream<Uint8Array> | null, contentType: string | null, declaredLength: number | null, maxBytes: number,
+): Promise<UploadParts> {
+  if (!contentType || !/^multipart\/form-data\b/i.test(contentType)) {
+    throw new AppError("unsupported_media_type", "Send the record as multipart/form-data with parts meta and data.", {
+      details: { rule: "multipart_required", got: contentType ?? null },
+    });
+  }
+  if (declaredLength !== null && declaredLength > maxBytes + META_MAX_BYTES) throw tooLarge(maxBytes);
+  if (!body) throw bad("The request has no body.", "body_required");
+  let bb: busboy.Busboy;
+  try {
+    bb = busboy({
+      headers: { "content-type": contentType },
+      limits: { fileSize: maxBytes, fieldSize: maxBytes, files: 2, fields: 2, parts: 2 },
+    });
+  } catch {
+    throw bad("The multipart body has no boundary.", "multipart_boundary");
+  }
+
+  return new Promise<UploadParts>((resolve, reject) => {
+    let meta: string | null = null;
+    let data: UploadParts["data"] | null = null;
+    let failed = false;
+    const seen = new Set<string>();
+    let total = 0;
+    const source = Readable.fromWeb(body as import("node:stream/web").ReadableStream<Uint8Array>);
+    const counter = new Transform({
+      transform(chunk: Buffer, _enc, cb) {
+        total += chunk.length;
+        if (total > maxBytes + META_MAX_BYTES) cb(tooLarge(maxBytes));
+        else cb(null, chunk);
+      },
+    });
+    const fail = (e: unknown) => {
+      if (failed) return;
+      failed = true;
+      source.destroy();
+      counter.destroy();
+      bb.destroy();
+      reject(e instanceof AppError ? e : bad("The multipart body is malformed.", "multipart_malformed"));
+    };
+    const claim = (name: string): boolean => {
+      if (name !== "meta" && name !== "data") {
+        fail(bad(`Unknown part '${name}': send only meta and data.`, "unknown_part", name));
+        return false;
+      }
+      if (seen.has(name)) {
+        fail(bad(`The part '${name}' is sent twice.`, "repeated_part", name));
+        return false;
+      }
+      seen.add(name);
+      return true;
+    };
+    bb.on("file", (name, stream, info) => {
+      if (!claim(name)) {
+        stream.resume();
+        return;
+      }
+      const chunks: Buffer[] = [];
+      stream.on("data", (c: Buffer) => chunks.push(c));
+      stream.on("limit", () => fail(tooLarge(maxBytes)));
+      stream.on("end", () => {
+        if (failed) return;
+        const bytes = Buffer.concat(chunks);
+        if (name === "meta") meta = bytes.toString("utf8");
+        else data = { bytes, mimeType: info.mimeType };
+      });
+    });
+    bb.on("field", (name, value, info) => {
+      if (!claim(name)) return;
+      if (info.valueTruncated) return fail(tooLarge(maxBytes));
+      if (name === "meta") meta = value;
+      else data = { bytes: Buffer.from(value, "utf8"), mimeType: info.mimeType };
+    });
+    bb.on("partsLimit", () => fail(bad("Send exactly two parts: meta and data.", "parts_limit")));
+    bb.on("filesLimit", () => fail(bad("Send exactly two parts: meta and data.", "parts_limit")));
+    bb.on("fieldsLimit", () => fail(bad("Send exactly two parts: meta and data.", "parts_limit")));
+    bb.on("error", fail);
+    counter.on("error", fail);
+    source.on("error", fail);
+    bb.on("close", () => {
+      if (failed) return;
+      if (meta === null) return fail(bad("The part 'meta' is missing.", "part_required", "meta"));
+      if (data === null) return fail(bad("The part 'data' is missing.", "part_required", "data"));
+      if (Buffer.byteLength(meta, "utf8") > META_MAX_BYTES) return fail(bad(`The part 'meta' exceeds ${META_MAX_BYTES} bytes.`, "meta_size", "meta"));
+      resolve({ meta, data });
+    });
+    source.pipe(counter).pipe(bb);
+  });
+}
