@@ -21,7 +21,8 @@ describe("Sign-in page", () => {
     const { page } = b;
     const users = await readDemoSignIns(page, appUrl());
     await signIn(page, appUrl(), users.engineer.email, `${users.engineer.password}-wrong`);
-    const error = page.getByRole("alert");
+    // Inside the form: Next's route announcer is also role="alert".
+    const error = page.locator("form [role=alert]");
     await error.waitFor();
     expect(await error.innerText()).toMatch(/e-mail or password is not right/i);
     expect(new URL(page.url()).pathname).toBe("/sign-in");
