@@ -6,12 +6,15 @@
 import type { Worker } from "bullmq";
 import { createRedisConnection } from "@/lib/jobs/connection";
 import { closeQueues } from "@/lib/jobs/queues";
+import { closeAnalysisQueue } from "@/lib/jobs/analysis";
 import { closeMailTransport } from "@/lib/email/transport";
 import { closeDb } from "@/lib/db/knex";
 import { createMailWorker } from "./mail.worker";
+import { createAnalysisWorker, startRecordSweeper } from "./analysis.worker";
 
 const connection = createRedisConnection();
-const workers: Worker[] = [createMailWorker(connection)];
+const workers: Worker[] = [createMailWorker(connection), createAnalysisWorker(connection)];
+const stopSweeper = startRecordSweeper();
 
 for (const w of workers) {
   w.on("failed", (job, err) => console.error(`${w.name} job ${job?.id ?? "?"} failed (attempt ${job?.attemptsMade ?? "?"}): ${err.message}`));
@@ -27,8 +30,9 @@ async function shutdown(signal: string): Promise<void> {
   const force = setTimeout(() => process.exit(1), 15_000);
   force.unref();
   try {
+    stopSweeper();
     await Promise.all(workers.map((w) => w.close()));
-    await closeQueues();
+    await Promise.all([closeQueues(), closeAnalysisQueue()]);
     await connection.quit().catch(() => connection.disconnect());
     closeMailTransport();
     await closeDb();
