@@ -19,6 +19,7 @@
 import { assertInteger } from "@/lib/numeric/validate";
 import {
   createInverseIterationScratch,
+  hypot2,
   inverseIteration,
   tridiagonalEigenvalues,
   type InverseIterationScratch,
@@ -131,7 +132,7 @@ class Solver implements HermitianEigenSolver {
         tau[k] = 0; // already tridiagonal in this column: identity reflector
         continue;
       }
-      const ax0 = Math.hypot(x0r, x0i);
+      const ax0 = hypot2(x0r, x0i);
       const sigma = Math.sqrt(rest + ax0 * ax0);
       const phr = ax0 === 0 ? 1 : x0r / ax0;
       const phi = ax0 === 0 ? 0 : x0i / ax0;
@@ -187,7 +188,7 @@ class Solver implements HermitianEigenSolver {
         offR = ar[(k + 1) * n + k];
         offI = ai[(k + 1) * n + k];
       }
-      const mag = Math.hypot(offR, offI);
+      const mag = hypot2(offR, offI);
       // δ_{k+1} = δ_k · e_k/|e_k| makes conj(δ_{k+1}) e_k δ_k = |e_k|
       if (mag > 0) {
         const ur = offR / mag, ui = offI / mag;

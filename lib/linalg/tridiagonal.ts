@@ -12,6 +12,23 @@
 const EPS = Number.EPSILON;
 
 /**
+ * √(a² + b²) without overflow or underflow, by scaling with the larger magnitude.
+ * Math.hypot is variadic and several times slower in V8; this sits in the QL inner loop.
+ */
+export function hypot2(a: number, b: number): number {
+  let x = a < 0 ? -a : a;
+  let y = b < 0 ? -b : b;
+  if (x < y) {
+    const t = x;
+    x = y;
+    y = t;
+  }
+  if (x === 0) return 0;
+  const r = y / x;
+  return x * Math.sqrt(1 + r * r);
+}
+
+/**
  * Eigenvalues of the tridiagonal matrix with diagonal `d` and off-diagonal `e`
  * (e[i] = T[i, i+1], e[n−1] ignored). Overwrites `d` with the eigenvalues (unsorted) and
  * destroys `e`.
@@ -31,7 +48,7 @@ export function tridiagonalEigenvalues(d: Float64Array, e: Float64Array, n: numb
       if (m !== l) {
         if (iter++ === 60) throw new Error("tridiagonal QL did not converge in 60 iterations");
         let g = (d[l + 1] - d[l]) / (2 * e[l]);
-        let r = Math.hypot(g, 1);
+        let r = hypot2(g, 1);
         g = d[m] - d[l] + e[l] / (g + (g >= 0 ? Math.abs(r) : -Math.abs(r)));
         let s = 1;
         let c = 1;
@@ -41,7 +58,7 @@ export function tridiagonalEigenvalues(d: Float64Array, e: Float64Array, n: numb
         for (i = m - 1; i >= l; i--) {
           const f = s * e[i];
           const b = c * e[i];
-          r = Math.hypot(f, g);
+          r = hypot2(f, g);
           e[i + 1] = r;
           if (r === 0) {
             d[i + 1] -= p;
