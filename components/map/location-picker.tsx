@@ -38,7 +38,7 @@ export function LocationPicker({ latitude, longitude, onPick, styleUrl }: Props)
         attributionControl={{ compact: true }}
         style={{ width: "100%", height: "100%" }}
       >
-        {styleUrl ? null : <BasemapLayers beforeId="picked-point" />}
+        {styleUrl ? null : <BasemapLayers />}
         <Source id="picked" type="geojson" data={point}>
           <Layer
             id="picked-point"

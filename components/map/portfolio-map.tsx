@@ -136,7 +136,7 @@ export function PortfolioMap({ assets, styleUrl, className, maxZoom = 10 }: Prop
         dragRotate={false}
         style={{ width: "100%", height: "100%" }}
       >
-        {styleUrl ? null : <BasemapLayers beforeId={MARKER_LAYER} />}
+        {styleUrl ? null : <BasemapLayers />}
         <Source id="assets" type="geojson" data={data}>
           <Layer
             id={MARKER_LAYER}

@@ -21,6 +21,8 @@ export function useFormAction<T>(action: (prev: ActionState<T>, formData: FormDa
     startTransition(() => dispatch(fd));
   }
   const fieldErrors = state && !state.ok ? state.fieldErrors : {};
-  const message = state && !state.ok ? state.message : null;
+  // A message that only repeats a field's own error is already shown under that field.
+  const repeated = state && !state.ok && Object.values(state.fieldErrors).some((msgs) => msgs.includes(state.message));
+  const message = state && !state.ok && !repeated ? state.message : null;
   return { state, onSubmit, pending, fieldErrors, message };
 }
