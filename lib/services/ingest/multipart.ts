@@ -40,7 +40,8 @@ export async function readUploadParts(
   try {
     bb = busboy({
       headers: { "content-type": contentType },
-      limits: { fileSize: maxBytes, fieldSize: maxBytes, files: 2, fields: 2, parts: 2 },
+      // Part counts are checked by name (claim); these limits only stop a flood of parts.
+      limits: { fileSize: maxBytes, fieldSize: maxBytes, files: 4, fields: 4, parts: 4 },
     });
   } catch {
     throw bad("The multipart body has no boundary.", "multipart_boundary");
@@ -63,9 +64,12 @@ export async function readUploadParts(
     const fail = (e: unknown) => {
       if (failed) return;
       failed = true;
+      // Stop feeding the parser and drop the request; busboy itself is left to the
+      // garbage collector (destroying it from inside its own callbacks corrupts its state).
+      counter.unpipe(bb);
+      source.unpipe(counter);
       source.destroy();
       counter.destroy();
-      bb.destroy();
       reject(e instanceof AppError ? e : bad("The multipart body is malformed.", "multipart_malformed"));
     };
     const claim = (name: string): boolean => {
