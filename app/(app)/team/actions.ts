@@ -2,8 +2,8 @@
 
 import { revalidatePath } from "next/cache";
 import { defineAction } from "@/lib/http/define-action";
-import { ChangeMemberRoleInput, InviteMemberInput, RemoveMemberInput } from "@/lib/services/team/schemas";
-import { changeMemberRole, inviteMember, removeMember } from "@/lib/services/team/team.service";
+import { ChangeMemberRoleInput, InviteMemberInput, RemoveMemberInput, RevokeInvitationInput } from "@/lib/services/team/schemas";
+import { changeMemberRole, inviteMember, removeMember, revokeInvitation } from "@/lib/services/team/team.service";
 
 export const inviteMemberAction = defineAction(InviteMemberInput, async (input, actor) => {
   const { invitation } = await inviteMember(actor, input);
@@ -21,4 +21,10 @@ export const removeMemberAction = defineAction(RemoveMemberInput, async (input, 
   await removeMember(actor, input);
   revalidatePath("/team");
   return { userId: input.userId };
+});
+
+export const revokeInvitationAction = defineAction(RevokeInvitationInput, async (input, actor) => {
+  await revokeInvitation(actor, input);
+  revalidatePath("/team");
+  return { id: input.id };
 });

@@ -1,13 +1,14 @@
 import type { Metadata } from "next";
 import { connection } from "next/server";
 import { can } from "@/lib/auth/permissions";
-import { listAudit, listMembers } from "@/lib/services/team/team.service";
+import { listAudit, listInvitations, listMembers } from "@/lib/services/team/team.service";
 import { getOrganisation } from "@/lib/services/accounts/profile.service";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/components/ui/format";
 import { Table, Td, Th } from "@/components/ui/table";
 import { InviteForm } from "./_components/invite-form";
 import { MemberTable } from "./_components/member-table";
+import { PendingInvitations } from "./_components/pending-invitations";
 import { pageActor } from "../_lib/page-actor";
 
 export const metadata: Metadata = { title: "Team" };
@@ -17,10 +18,11 @@ export default async function TeamPage() {
   await connection();
   const actor = await pageActor();
   const canWrite = can(actor.role, "team:write");
-  const [members, organisation, audit] = await Promise.all([
+  const [members, organisation, audit, invitations] = await Promise.all([
     listMembers(actor),
     getOrganisation(actor),
     can(actor.role, "audit:read") ? listAudit(actor, { limit: 15 }) : Promise.resolve(null),
+    canWrite ? listInvitations(actor) : Promise.resolve(null),
   ]);
   const tz = organisation.timeZone;
   return (
@@ -69,9 +71,19 @@ export default async function TeamPage() {
           ) : null}
         </div>
         {canWrite ? (
-          <Panel title="Invite a member">
-            <InviteForm />
-          </Panel>
+          <div className="space-y-5">
+            <Panel title="Invite a member">
+              <InviteForm />
+            </Panel>
+            {invitations ? (
+              <Panel title={`Pending invitations (${invitations.length})`} bodyClassName="p-0">
+                <PendingInvitations
+                  invitations={invitations.map((i) => ({ id: i.id, email: i.email, role: i.role, expiresAt: i.expiresAt.toISOString() }))}
+                  timeZone={tz}
+                />
+              </Panel>
+            ) : null}
+          </div>
         ) : null}
       </div>
     </>
