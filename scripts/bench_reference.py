@@ -4,8 +4,9 @@
 Usage: bench_reference.py <record.f32> <channels> <fs> <nperseg> <runs>
 The record is float32 little-endian, interleaved sample by sample. Times the same work as
 the TypeScript chain's spectral part: the full CSD matrix with scipy.signal.csd (Hann,
-50 % overlap, density; one call per column j: csd(y_j, Y) = G[:, j]) and numpy.linalg.svd
-of G at every line (singular values and vectors). Single-threaded BLAS, like one core.
+50 % overlap, density; csd(y_j, Y) = G[:, j]) and numpy.linalg.svd
+of G at every line (singular values and vectors). One csd call per column j over
+channels i ≥ j (the Hermitian half), mirrored. Single-threaded BLAS, like one core.
 Prints one JSON line: {"medianMs", "runsMs", "scipy", "numpy"}.
 """
 import os
@@ -26,11 +27,13 @@ def chain(y, fs, nperseg):
     n = y.shape[0]
     g = None
     for j in range(n):
-        f, col = sig.csd(y[j][None, :], y, fs=fs, window="hann", nperseg=nperseg,
+        # lower triangle of column j only (G is Hermitian), as our code does
+        f, col = sig.csd(y[j][None, :], y[j:], fs=fs, window="hann", nperseg=nperseg,
                          noverlap=nperseg // 2, detrend="constant", scaling="density")
         if g is None:
             g = np.empty((col.shape[-1], n, n), dtype=complex)
-        g[:, :, j] = col.T  # G_ij = csd(y_j, y_i)
+        g[:, j:, j] = col.T  # G_ij = csd(y_j, y_i), i >= j
+        g[:, j, j:] = col.T.conj()
     u, s, vh = np.linalg.svd(g)
     return f, s, u[:, :, 0]
 

@@ -229,17 +229,21 @@ function countClipped(x: ArrayLike<number>, fullScale: number | undefined, max: 
   return c;
 }
 
-/** |x − median| > k · 1.4826 · MAD (1.4826 makes MAD a consistent σ for Gaussian data). */
+/** |x − median| > k · 1.4826 · MAD (1.4826 makes MAD a consistent σ for Gaussian data); the upper median is used for even counts. */
 function countSpikes(x: ArrayLike<number>, k: number): number {
-  const finite: number[] = [];
-  for (let i = 0; i < x.length; i++) if (Number.isFinite(x[i])) finite.push(x[i]);
-  const med = median(finite);
-  const dev = Float64Array.from(finite, (v) => Math.abs(v - med));
-  const mad = selectInPlace(dev, dev.length >> 1);
+  // Typed copies and O(n) selection: this runs on every channel of every record.
+  const buf = new Float64Array(x.length);
+  let m = 0;
+  for (let i = 0; i < x.length; i++) if (Number.isFinite(x[i])) buf[m++] = x[i];
+  const finite = buf.subarray(0, m);
+  const work = finite.slice();
+  const med = selectInPlace(work, m >> 1);
+  for (let i = 0; i < m; i++) work[i] = Math.abs(finite[i] - med);
+  const mad = selectInPlace(work, m >> 1);
   if (mad === 0) return 0;
   const lim = k * 1.4826 * mad;
   let c = 0;
-  for (const v of finite) if (Math.abs(v - med) > lim) c++;
+  for (let i = 0; i < m; i++) if (Math.abs(finite[i] - med) > lim) c++;
   return c;
 }
 
@@ -254,7 +258,10 @@ function findHum(x: ArrayLike<number>, fs: number, humDb: number): number[] {
   const n = x.length;
   let nper = 1024;
   while (nper > 64 && nper * 4 > n) nper /= 2;
-  const psd = estimateCsdMatrix([x], fs, { nperseg: nper });
+  // Hum is stationary: ~64 averages are plenty, so long records are not read to the end.
+  const used = Math.min(n, 65 * (nper / 2));
+  const xs = ArrayBuffer.isView(x) ? (x as Float64Array).subarray(0, used) : Float64Array.from({ length: used }, (_, i) => x[i]);
+  const psd = estimateCsdMatrix([xs], fs, { nperseg: nper });
   const p = psd.re; // 1×1 per line: the PSD
   const df = psd.lineSpacingHz;
   const found: number[] = [];
