@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { appUrl, openBrowser, type BrowserSession } from "./browser";
+import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
 import { readDemoSignIns, screenshot, signIn } from "./flows";
 
 describe("An engineer", () => {

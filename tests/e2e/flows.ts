@@ -1,6 +1,6 @@
 /**
- * Page-level steps shared by the browser tests (sign in, wait for the map, read the mail
- * catcher). The browser and the stack come from the launcher harness in ./helpers.
+ * Page-level steps shared by the browser tests (sign in, read the demo sign-ins, wait for the
+ * map, read canvas pixels). The browser and the stack come from the harness in ./helpers.
  */
 import fs from "node:fs";
 import path from "node:path";
@@ -60,29 +60,6 @@ export async function waitForRenderedAssets(page: Page, count: number): Promise<
     { timeout: 60_000 },
   );
   return Number(await map.getAttribute("data-rendered-assets"));
-}
-
-export interface CaughtMail {
-  id: string;
-  to: string[];
-  subject: string;
-  text: string;
-  html: string | null;
-}
-
-/** Poll the mail catcher's JSON listing until a message to `to` arrives. */
-export async function waitForMail(catcherUrl: string, to: string, timeoutMs = 60_000): Promise<CaughtMail> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const res = await fetch(`${catcherUrl}/messages`);
-    if (!res.ok) throw new Error(`mail catcher answered ${res.status}`);
-    const body = (await res.json()) as CaughtMail[] | { messages: CaughtMail[] };
-    const list = Array.isArray(body) ? body : body.messages;
-    const hit = list.find((m) => m.to.map((t) => t.toLowerCase()).includes(to.toLowerCase()));
-    if (hit) return hit;
-    if (Date.now() > deadline) throw new Error(`no e-mail to ${to} within ${timeoutMs} ms`);
-    await new Promise((r) => setTimeout(r, 500));
-  }
 }
 
 /** The five assets of PRODUCT.md's demo scenario, as named in foundation-spec.md. */

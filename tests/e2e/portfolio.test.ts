@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ROLES } from "@/lib/auth/permissions";
 import { CONDITION_STYLES } from "@/components/condition/conditions";
 import type { AssetCondition } from "@/lib/domain/types";
-import { appUrl, openBrowser, type BrowserSession } from "./browser";
+import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
 import {
   countColourPixels, DEMO_ASSET_NAMES, fetchAssetsInPage, readDemoSignIns, screenshot, signIn, waitForRenderedAssets,
 } from "./flows";

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { appUrl, openBrowser, type BrowserSession } from "./browser";
+import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
 import { DEMO_ASSET_NAMES, fetchAssetsInPage, readDemoSignIns, screenshot, signIn } from "./flows";
 
 const EDIT_BUTTONS = /^(New asset|Edit asset|Edit|Add|Deactivate|Create gateway|Revoke|Send invitation|Change|Remove|Withdraw)$/;

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { appUrl, catcherUrl, openBrowser, type BrowserSession } from "./browser";
-import { readDemoSignIns, screenshot, signIn, signOut, waitForMail, waitForRenderedAssets } from "./flows";
+import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
+import { waitForMail } from "./helpers/stack";
+import { readDemoSignIns, screenshot, signIn, signOut, waitForRenderedAssets } from "./flows";
 
 describe("Team invitation", () => {
   let b: BrowserSession;
@@ -28,7 +29,7 @@ describe("Team invitation", () => {
     await form.getByText(`Invitation sent to ${email}`).waitFor();
     await screenshot(page, "team-admin-invited");
 
-    const mail = await waitForMail(catcherUrl(), email);
+    const mail = await waitForMail((m) => m.to.includes(email), { timeoutMs: 60_000 });
     const link = mail.text.match(/https?:\/\/\S+\/invite\/[A-Za-z0-9_-]+/)?.[0];
     expect(link, "invitation link in the e-mail").toBeDefined();
     expect(link!.startsWith(`${appUrl()}/invite/`)).toBe(true);
