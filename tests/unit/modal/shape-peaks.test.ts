@@ -42,3 +42,22 @@ describe("pickFddPeaks", () => {
     expect(() => pickFddPeaks(fdd, { maxFrequencyHz: 50 })).toThrow(RangeError);
   });
 });
+
+describe("validation gates of FDD and EFDD", () => {
+  const rng = createRng(9);
+  const data = [0, 1, 2].map(() => Float64Array.from({ length: 2048 }, () => rng.normal()));
+  const csd = estimateCsdMatrix(data, 10, { nperseg: 128 });
+  const fdd = decomposeCsdMatrix(csd);
+  it("decomposeCsdMatrix refuses a non-CSD object and a bad vector count", () => {
+    expect(() => decomposeCsdMatrix({} as typeof csd)).toThrow(TypeError);
+    expect(() => decomposeCsdMatrix(csd, 4)).toThrow(/vectors must be ≤ 3 \(got 4\)/);
+    expect(() => decomposeCsdMatrix({ ...csd, re: csd.re.subarray(1) })).toThrow(RangeError);
+  });
+  it("estimateEfdd refuses a line off the spectrum and a shape of the wrong length", async () => {
+    const { estimateEfdd } = await import("@/lib/modal/efdd");
+    const v = { re: [1, 0, 0], im: [0, 0, 0] };
+    expect(() => estimateEfdd(fdd, 0, v)).toThrow(/peakLine must be ≥ 1 \(got 0\)/);
+    expect(() => estimateEfdd(fdd, 10, { re: [1, 0], im: [0, 0] })).toThrow(RangeError);
+    expect(() => estimateEfdd(fdd, 10, v, 0)).toThrow(RangeError);
+  });
+});
