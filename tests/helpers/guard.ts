@@ -10,7 +10,8 @@ export function assertTestStack(): void {
   if (e.PGPORT !== e.TEST_PGPORT || e.REDIS_PORT !== e.TEST_REDIS_PORT) {
     throw new Error(
       `refusing to run against PGPORT=${e.PGPORT}/REDIS_PORT=${e.REDIS_PORT}: integration and e2e tests run on the ` +
-        `test stack (PGPORT=${e.TEST_PGPORT}, REDIS_PORT=${e.TEST_REDIS_PORT}); use \`npm test -- --stages=integration\``,
+        `test stack (PGPORT=${e.TEST_PGPORT}, REDIS_PORT=${e.TEST_REDIS_PORT}): use \`npm test -- --stages=integration\`, ` +
+        `or, for throw-away services of your own, set TEST_PGPORT and TEST_REDIS_PORT to their ports as well`,
     );
   }
 }
