@@ -6,6 +6,9 @@
 // non-zero when any stage failed. Everything started is stopped, also on Ctrl-C.
 //   npm test -- --stages=unit,integration   run some stages only
 //   npm test -- --keep                      keep the temp folder (logs, database files)
+//   npm test -- --stages=integration tests/integration/health.test.ts   filters go to vitest
+//   npm test -- --services                  only start the test services and print their
+//                                           environment; Ctrl-C stops them
 import { spawn } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
@@ -23,6 +26,8 @@ const ALL_STAGES = ["lint", "types", "unit", "integration", "e2e"];
 const argStages = process.argv.find((a) => a.startsWith("--stages="))?.slice("--stages=".length);
 const stages = argStages ? argStages.split(",").map((s) => s.trim()).filter(Boolean) : ALL_STAGES;
 const keep = process.argv.includes("--keep");
+const servicesOnly = process.argv.includes("--services");
+const filters = process.argv.slice(2).filter((a) => !a.startsWith("--"));
 for (const s of stages) if (!ALL_STAGES.includes(s)) throw new Error(`unknown stage ${s} (${ALL_STAGES.join(", ")})`);
 
 const t0 = Date.now();
@@ -118,7 +123,7 @@ async function e2eStage() {
   } catch (err) {
     throw new Error(`${err.message}\n--- app log ---\n${tail(appLog)}`);
   }
-  const ok = await stageCommand([bin.vitest, "run", "--project", "e2e"], { ...env, APP_URL: cfg.appUrl });
+  const ok = await stageCommand([bin.vitest, "run", "--project", "e2e", ...filters], { ...env, APP_URL: cfg.appUrl });
   if (!ok) log("test", `--- last lines of ${appLog} ---\n${tail(appLog, 30)}\n--- ${workerLog} ---\n${tail(workerLog, 15)}`);
   return ok;
 }
@@ -161,7 +166,21 @@ setInterval(() => {
   if (process.ppid !== parent && !interrupted) process.emit("SIGTERM");
 }, 1000).unref();
 
+/** `--services`: the test stack alone, for running single vitest files by hand. */
+async function serveOnly() {
+  await ensureNodeModules(root);
+  await ensureDebianPackage("/usr/bin/redis-server", "redis-server");
+  cfg = testConfig(root);
+  const { env } = await ensureServices();
+  const names = ["PGPORT", "REDIS_PORT", "SMTP_PORT", "MAIL_CATCHER_HTTP_PORT", "MODEWARDEN_DATA_DIR", "MODEWARDEN_DEV_MAIL"];
+  log("test", ["test services are up; in another shell:", `  export ${names.map((n) => `${n}=${env[n]}`).join(" ")}`,
+    "  npx vitest run --project integration <file>", "Ctrl-C stops them."].join("\n"));
+  setInterval(() => {}, 1 << 30);
+  await new Promise(() => {});
+}
+
 async function main() {
+  if (servicesOnly) return serveOnly();
   const needsServices = stages.includes("integration") || stages.includes("e2e");
   if (needsServices && process.getuid?.() !== 0) throw new Error("npm test runs as root (it manages a PostgreSQL cluster through runuser)");
   await ensureNodeModules(root);
@@ -177,11 +196,11 @@ async function main() {
   const plainEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1" };
   if (stages.includes("lint")) await stage("lint", () => stageCommand([bin.eslint, "."], plainEnv));
   if (stages.includes("types")) await stage("types", () => stageCommand([bin.tsc, "--noEmit", "-p", "."], plainEnv));
-  if (stages.includes("unit")) await stage("unit", () => stageCommand([bin.vitest, "run", "--project", "unit"], plainEnv));
+  if (stages.includes("unit")) await stage("unit", () => stageCommand([bin.vitest, "run", "--project", "unit", ...filters], plainEnv));
   if (stages.includes("integration")) {
     await stage("integration", async () => {
       const { env } = await ensureServices();
-      return stageCommand([bin.vitest, "run", "--project", "integration"], env);
+      return stageCommand([bin.vitest, "run", "--project", "integration", ...filters], env);
     });
   }
   if (stages.includes("e2e")) await stage("e2e", e2eStage);
