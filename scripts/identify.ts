@@ -13,6 +13,7 @@ import { readFileSync } from "node:fs";
 import { gunzipSync } from "node:zlib";
 import { identifyModes, type IdentifyOptions } from "@/lib/modal/identify";
 import { isGzip, parseCsvRecord, parseFloat32Record, parseRecordMeta } from "@/lib/signal/parse-record";
+import { decimationFactorForBand } from "@/lib/signal/decimate";
 import { toMetresPerSecondSquared } from "@/lib/signal/units";
 
 class UsageError extends Error {}
@@ -82,7 +83,16 @@ function main(): void {
   const method = args.method ?? "fdd";
   if (!["fdd", "ssi", "both"].includes(method)) throw new UsageError(`--method must be fdd, ssi or both (got ${method})`);
   const options: IdentifyOptions = { methods: method === "both" ? ["fdd", "ssi"] : [method as "fdd" | "ssi"] };
-  if (args.bands) options.bandsHz = parseBands(args.bands);
+  if (args.bands) {
+    options.bandsHz = parseBands(args.bands);
+    // SSI-COV cost grows with the sample count: decimate to a rate that keeps the bands
+    // below 0.8 of the new Nyquist (the FDD path keeps the full rate).
+    const top = Math.max(...options.bandsHz.map((b) => b[1]));
+    if (top < meta.sampleRateHz / 2) {
+      const q = decimationFactorForBand(meta.sampleRateHz, top);
+      if (q > 1) options.ssiSampleRateHz = meta.sampleRateHz / q;
+    }
+  }
   if (args.nperseg) options.nperseg = Number(args.nperseg);
 
   const result = identifyModes({ sampleRateHz: meta.sampleRateHz, channels: meta.channels, data }, options);

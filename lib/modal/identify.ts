@@ -128,7 +128,7 @@ export function identifyModes(record: ModalRecord, options: IdentifyOptions = {}
       const ssiOptions: SsiCovOptions = { ...o.ssi, bandsHz: o.ssi.bandsHz ?? o.peakPicking.bandsHz };
       const ssi = identifyModesSsiCov({ sampleRateHz: fs / q, channels, data: ssiData }, ssiOptions);
       warnings.push(...ssi.warnings.map((w) => `SSI-COV: ${w}`));
-      mergeSsi(modes, ssi.modes, length / fs, o.methods.includes("fdd"));
+      warnings.push(...mergeSsi(modes, ssi.modes, length / fs, o.methods.includes("fdd")));
     }
     timings.ssi = performance.now() - t;
   }
@@ -167,8 +167,15 @@ function fddMode(fdd: ReturnType<typeof decomposeCsdMatrix>, p: FddPeak, duratio
   };
 }
 
-/** Attaches each SSI mode to the FDD mode it matches (frequency within 5 %, MAC ≥ 0.8 [practice]); unmatched SSI modes are added. */
-function mergeSsi(modes: IdentifiedMode[], ssiModes: SsiMode[], durationS: number, haveFdd: boolean): void {
+/**
+ * Attaches each SSI mode to the FDD mode it matches (frequency within 5 %, MAC ≥ 0.8
+ * [practice]). An unmatched SSI mode is added when SSI ran alone, or when it lies within 5 %
+ * of an FDD mode flagged possibly coupled (SSI separating what FDD could not); otherwise it is
+ * only named in a warning, since an unconfirmed pole family is as likely spurious.
+ */
+function mergeSsi(modes: IdentifiedMode[], ssiModes: SsiMode[], durationS: number, haveFdd: boolean): string[] {
+  const warnings: string[] = [];
+  const fddModes = modes.slice();
   const used = new Set<number>();
   for (const m of modes) {
     let best = -1;
@@ -188,6 +195,10 @@ function mergeSsi(modes: IdentifiedMode[], ssiModes: SsiMode[], durationS: numbe
   }
   ssiModes.forEach((s, i) => {
     if (used.has(i)) return;
+    if (haveFdd && !fddModes.some((m) => m.possiblyCoupled && Math.abs(m.frequencyHz - s.frequencyHz) <= 0.05 * m.frequencyHz)) {
+      warnings.push(`SSI-COV mode at ${s.frequencyHz.toFixed(3)} Hz (ζ = ${(100 * s.dampingRatio).toFixed(2)} %) has no FDD counterpart: not reported`);
+      return;
+    }
     let norm = 0;
     for (let c = 0; c < s.shape.re.length; c++) norm += s.shape.re[c] ** 2 + s.shape.im[c] ** 2;
     const k = 1 / Math.sqrt(norm);
@@ -209,6 +220,7 @@ function mergeSsi(modes: IdentifiedMode[], ssiModes: SsiMode[], durationS: numbe
       band: null,
     });
   });
+  return warnings;
 }
 
 function floorPow2(n: number): number {

@@ -65,3 +65,20 @@ export function decimate(x: ArrayLike<number>, q: number): Float64Array {
   }
   return out;
 }
+
+/**
+ * Largest integer decimation factor that keeps `maxFrequencyHz` within 0.8 of the new
+ * Nyquist frequency (the FIR's cutoff region above stays clear of the band) [practice].
+ * @param sampleRateHz - Hz, > 0.
+ * @param maxFrequencyHz - highest frequency of interest in Hz, 0 < f < sampleRateHz/2.
+ * @returns q, integer 1…64 (1: no decimation).
+ * @throws TypeError / RangeError for bad arguments.
+ */
+export function decimationFactorForBand(sampleRateHz: number, maxFrequencyHz: number): number {
+  if (typeof sampleRateHz !== "number" || !Number.isFinite(sampleRateHz)) throw new TypeError(`sampleRateHz must be a finite number (got ${sampleRateHz})`);
+  if (typeof maxFrequencyHz !== "number" || !Number.isFinite(maxFrequencyHz)) throw new TypeError(`maxFrequencyHz must be a finite number (got ${maxFrequencyHz})`);
+  if (!(sampleRateHz > 0)) throw new RangeError(`sampleRateHz must be > 0 (got ${sampleRateHz})`);
+  if (!(maxFrequencyHz > 0 && maxFrequencyHz < sampleRateHz / 2)) throw new RangeError(`maxFrequencyHz must be within (0, ${sampleRateHz / 2}) (got ${maxFrequencyHz})`);
+  // new Nyquist fs/(2q) ≥ f/0.8  ⇔  q ≤ 0.4·fs/f
+  return Math.max(1, Math.min(64, Math.floor((0.4 * sampleRateHz) / maxFrequencyHz)));
+}

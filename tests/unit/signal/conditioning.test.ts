@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { decimate, firLowpass } from "@/lib/signal/decimate";
+import { decimate, decimationFactorForBand, firLowpass } from "@/lib/signal/decimate";
 import { removeLinearTrend, removeMean } from "@/lib/signal/detrend";
 import { accelerationFactor, STANDARD_GRAVITY, toMetresPerSecondSquared, type AccelerationUnit } from "@/lib/signal/units";
 import { chooseSegmentLength } from "@/lib/signal/segment-length";
@@ -82,5 +82,14 @@ describe("chooseSegmentLength", () => {
     expect(() => chooseSegmentLength(200, 1000, { lowestFrequencyHz: 150 })).toThrow(/Nyquist/);
     expect(() => chooseSegmentLength(200, 10, { lowestFrequencyHz: 1 })).toThrow(RangeError);
     expect(() => chooseSegmentLength(200, 1000, { lowestFrequencyHz: 1, assumedDampingRatio: 0.9 })).toThrow(RangeError);
+  });
+});
+
+describe("decimationFactorForBand", () => {
+  it("keeps the band below 0.8 of the new Nyquist [practice]", () => {
+    expect(decimationFactorForBand(200, 10)).toBe(8); // 25 Hz rate, Nyquist 12.5 Hz, 10 ≤ 0.8·12.5
+    expect(decimationFactorForBand(200, 15)).toBe(5);
+    expect(decimationFactorForBand(50, 19)).toBe(1);
+    expect(() => decimationFactorForBand(200, 120)).toThrow(RangeError);
   });
 });
