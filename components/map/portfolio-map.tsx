@@ -19,9 +19,12 @@ import { ConditionBadge } from "@/components/condition/condition-badge";
 import { KIND_LABELS } from "@/components/ui/format";
 import { BasemapLayers } from "./basemap-layers";
 import { maplibreWorkerUrl, offlineStyle } from "./basemap";
+import { LocatorInset, type ViewBounds } from "./locator-inset";
 import { MapLegend } from "./map-legend";
 
 const MARKER_LAYER = "asset-markers";
+// The locator (top left) and the legend (bottom left) sit over the map: keep markers clear of them.
+const FIT_PADDING = { top: 48, bottom: 48, left: 170, right: 56 };
 
 interface Props {
   assets: AssetSummary[];
@@ -83,6 +86,7 @@ export function PortfolioMap({ assets, styleUrl, className, maxZoom = 10 }: Prop
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const [rendered, setRendered] = useState<number | null>(null);
   const [positions, setPositions] = useState<string>("");
+  const [view, setView] = useState<ViewBounds | null>(null);
   const [cursor, setCursor] = useState<string>("");
   const data = useMemo(() => toFeatures(assets), [assets]);
   const bounds = useMemo(() => boundsOf(assets), [assets]);
@@ -106,6 +110,8 @@ export function PortfolioMap({ assets, styleUrl, className, maxZoom = 10 }: Prop
       pos[a.id] = { x: Math.round(p.x), y: Math.round(p.y) };
     }
     setPositions(JSON.stringify(pos));
+    const b = map.getBounds();
+    setView([[b.getWest(), b.getSouth()], [b.getEast(), b.getNorth()]]);
   }, [assets]);
 
   const onClick = useCallback((e: MapLayerMouseEvent) => {
@@ -125,7 +131,7 @@ export function PortfolioMap({ assets, styleUrl, className, maxZoom = 10 }: Prop
         ref={mapRef}
         mapStyle={style}
         workerUrl={workerUrl}
-        initialViewState={bounds ? { bounds, fitBoundsOptions: { padding: 48, maxZoom } } : { longitude: 0, latitude: 20, zoom: 1 }}
+        initialViewState={bounds ? { bounds, fitBoundsOptions: { padding: FIT_PADDING, maxZoom } } : { longitude: 0, latitude: 20, zoom: 1 }}
         interactiveLayerIds={[MARKER_LAYER]}
         onClick={onClick}
         onMouseEnter={() => setCursor("pointer")}
@@ -180,6 +186,9 @@ export function PortfolioMap({ assets, styleUrl, className, maxZoom = 10 }: Prop
         ) : null}
       </MapGL>
       <MapLegend className="absolute bottom-3 left-3" />
+      {styleUrl ? null : (
+        <LocatorInset bounds={view} className="absolute top-3 left-3 overflow-hidden rounded-md border border-line-strong shadow-sm" />
+      )}
     </div>
   );
 }

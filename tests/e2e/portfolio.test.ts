@@ -43,13 +43,14 @@ describe("Portfolio", () => {
 
       // Map: MapLibre's own count of drawn markers (queryRenderedFeatures), then the pixels.
       expect(await waitForRenderedAssets(page, assets.length)).toBe(assets.length);
-      await page.addStyleTag({ content: "[data-testid=map-legend]{visibility:hidden}" });
+      // Overlays (legend dots, locator) would add their own coloured pixels: hide them first.
+      await page.addStyleTag({ content: "[data-testid=map-legend],[data-testid=map-locator]{visibility:hidden}" });
       const png = await page.locator("[data-testid=portfolio-map] canvas").screenshot();
       const present = [...new Set(assets.map((a) => a.condition as AssetCondition))].filter((c) => !CONDITION_STYLES[c].outline);
       const counts = await countColourPixels(page, png, Object.fromEntries(present.map((c) => [c, CONDITION_STYLES[c].fill])));
       // A marker is a disc of radius ≥ 5 px, so each condition present paints well over 20 pixels.
       for (const c of present) expect(counts[c], `pixels painted in the ${c} colour`).toBeGreaterThan(20);
-      await page.addStyleTag({ content: "[data-testid=map-legend]{visibility:visible}" });
+      await page.addStyleTag({ content: "[data-testid=map-legend],[data-testid=map-locator]{visibility:visible}" });
       await screenshot(page, `portfolio-${role}`);
     });
   }

@@ -24,7 +24,7 @@ export function PortfolioView({ styleUrl }: { styleUrl: string }) {
     <div className="space-y-5">
       {error ? <Notice tone="error">Could not load the assets: {error.message}</Notice> : null}
       {assets ? <ConditionSummary assets={assets} /> : null}
-      <div className="grid gap-5 xl:grid-cols-[minmax(0,1.15fr)_minmax(0,1fr)]">
+      <div className="grid gap-5 xl:grid-cols-2">
         {assets ? <PortfolioMap assets={assets} styleUrl={styleUrl} /> : <MapPlaceholder text={isLoading ? "Loading assets…" : "No data"} />}
         <AssetTable assets={assets ?? []} loading={!assets && isLoading} />
       </div>

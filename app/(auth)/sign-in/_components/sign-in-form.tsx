@@ -81,9 +81,13 @@ export function SignInForm({ demo, callbackUrl, initialEmail }: { demo: DemoSign
           <ul className="space-y-1.5 text-sm">
             {demo.map((d) => (
               <li key={d.email} className="flex items-center justify-between gap-2">
-                <span className="min-w-0">
-                  <span className="inline-block w-20 font-medium capitalize">{d.role}</span>
-                  <span className="font-mono text-xs text-muted">{d.email}</span>
+                <span className="flex min-w-0 items-baseline">
+                  <span className="inline-block w-20 shrink-0 font-medium capitalize">{d.role}</span>
+                  <span className="min-w-0 font-mono text-xs leading-5 text-muted">
+                    {d.email}
+                    <br />
+                    {d.password}
+                  </span>
                 </span>
                 <Button
                   size="sm"
@@ -98,7 +102,6 @@ export function SignInForm({ demo, callbackUrl, initialEmail }: { demo: DemoSign
               </li>
             ))}
           </ul>
-          <p className="mt-2 text-xs text-faint">Passwords: {demo.map((d) => d.password).join(", ")}</p>
         </section>
       ) : null}
     </div>
