@@ -6,6 +6,9 @@ const nextConfig: NextConfig = {
   serverExternalPackages: ["knex", "pg", "bullmq", "ioredis", "@node-rs/argon2", "nodemailer"],
   poweredByHeader: false,
   typedRoutes: false,
+  // `npm test` runs `tsc --noEmit` as its own stage; checking types again inside `next build`
+  // costs 60–80 s on a 2-core machine and would eat into the 5-minute cold-start budget.
+  typescript: { ignoreBuildErrors: true },
 };
 
 export default nextConfig;
