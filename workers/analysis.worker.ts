@@ -14,9 +14,9 @@ import { sweepPendingRecords } from "@/lib/services/analysis/sweeper";
 export async function processAnalysisJob(job: Job): Promise<AnalyseOutcome> {
   const parsed = AnalysisJob.safeParse(job.data);
   if (!parsed.success) throw new UnrecoverableError(`invalid analysis payload: ${parsed.error.message}`);
-  const { recordId } = parsed.data;
+  const { recordId, settingsVersion } = parsed.data;
   try {
-    return await analyseRecord(recordId, { onProgress: (p) => job.updateProgress(Math.round(p * 100)) });
+    return await analyseRecord(recordId, { settingsVersion, onProgress: (p) => job.updateProgress(Math.round(p * 100)) });
   } catch (e) {
     const message = e instanceof Error ? e.message : String(e);
     const permanent = e instanceof PermanentAnalysisError;

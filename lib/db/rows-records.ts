@@ -3,7 +3,7 @@
  * (the counterpart of rows.ts for these tables; repos select exactly these columns).
  */
 import type {
-  AnalysisResult, AnalysisSettings, AnalysisSettingsValues, DataFormat, ModeAssignment, QualityVerdictKind,
+  AnalysisExtras, AnalysisResult, AnalysisSettings, AnalysisSettingsValues, DataFormat, ModeAssignment, QualityVerdictKind,
   RecordEnvironment, RecordStatus, RecordUnits, StoredMode, TrackedMode, VibrationRecord,
 } from "@/lib/domain/records";
 import type { QualityReport } from "@/lib/signal/quality";
@@ -21,12 +21,14 @@ export interface AnalysisSettingsRow {
 }
 export interface TrackedModeRow {
   id: string; asset_id: string; label: string; nominal_frequency_hz: number; band_low_hz: number; band_high_hz: number;
-  reference_shape: Record<string, number> | null; created_at: Date; updated_at: Date;
+  reference_shape: Record<string, number> | null; active: boolean; source_record_id: string | null;
+  source_mode_index: number | null; created_at: Date; updated_at: Date;
 }
 export interface AnalysisResultRow {
   id: string; record_id: string; settings_version: number; verdict: QualityVerdictKind; quality: QualityReport;
   channels_used: string[]; spectral: AnalysisResult["spectral"]; singular_values: AnalysisResult["singularValues"];
-  warnings: string[]; timings_ms: Record<string, number>; engine_version: string; analysed_at: Date;
+  warnings: string[]; timings_ms: Record<string, number>; engine_version: string; extras: AnalysisExtras | null;
+  analysed_at: Date;
 }
 export interface IdentifiedModeRow {
   id: string; result_id: string; mode_index: number; frequency_hz: number; damping_ratio: number | null;
@@ -54,13 +56,15 @@ export const toAnalysisSettings = (r: AnalysisSettingsRow): AnalysisSettings => 
 
 export const toTrackedMode = (r: TrackedModeRow): TrackedMode => ({
   id: r.id, assetId: r.asset_id, label: r.label, nominalFrequencyHz: r.nominal_frequency_hz, bandLowHz: r.band_low_hz,
-  bandHighHz: r.band_high_hz, referenceShape: r.reference_shape, createdAt: r.created_at, updatedAt: r.updated_at,
+  bandHighHz: r.band_high_hz, referenceShape: r.reference_shape, active: r.active, sourceRecordId: r.source_record_id,
+  sourceModeIndex: r.source_mode_index, createdAt: r.created_at, updatedAt: r.updated_at,
 });
 
 export const toAnalysisResult = (r: AnalysisResultRow): AnalysisResult => ({
   id: r.id, recordId: r.record_id, settingsVersion: r.settings_version, verdict: r.verdict, quality: r.quality,
   channelsUsed: r.channels_used, spectral: r.spectral, singularValues: r.singular_values, warnings: r.warnings,
-  timingsMs: r.timings_ms, engineVersion: r.engine_version, analysedAt: r.analysed_at,
+  timingsMs: r.timings_ms, engineVersion: r.engine_version, extras: r.extras ?? null,
+  analysedAt: r.analysed_at,
 });
 
 export const toStoredMode = (r: IdentifiedModeRow): StoredMode => ({

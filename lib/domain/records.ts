@@ -60,6 +60,8 @@ export interface AnalysisSettingsValues {
   decimationTargetHz: number | null;
   /** Welch segment length (power of two); null = automatic from the lowest tracked mode. */
   nperseg: number | null;
+  /** Welch segment overlap as a fraction in [0, 0.9]; absent = the engine's default (0.5). */
+  overlap?: number;
   methods: ("fdd" | "ssi")[];
   quality: { flatRunS?: number; spikeSigma?: number; minRms?: number; fullScale?: number };
 }
@@ -82,8 +84,30 @@ export interface TrackedMode {
   bandHighHz: number;
   /** Reference shape by channel code, or null (frequency band only). */
   referenceShape: Record<string, number> | null;
+  /** False once deactivated: no longer assigned in new analyses; its history stays. */
+  active: boolean;
+  /** The record and mode index it was taken from ("track this mode"), or null (entered by hand). */
+  sourceRecordId: string | null;
+  sourceModeIndex: number | null;
   createdAt: Date;
   updatedAt: Date;
+}
+
+/** One pole of the SSI-COV stabilisation diagram, compact: [order, frequency Hz, damping ratio, label]. */
+export type StabilisationPointTuple = [number, number, number, "new" | "f" | "fd" | "fv" | "fdv"];
+
+/** H1 FRF of one response channel against the force channel, downsampled for display. */
+export interface FrfChannelData {
+  channel: string;
+  magnitude: number[];
+  phaseRad: number[];
+  coherence: number[];
+}
+
+/** Display data stored beside a result (null fields: not applicable). */
+export interface AnalysisExtras {
+  stabilisation: StabilisationPointTuple[] | null;
+  frf: { forceChannel: string; frequencyHz: number[]; channels: FrfChannelData[] } | null;
 }
 
 export type QualityVerdictKind = "accept" | "accept_without" | "reject";
@@ -100,6 +124,8 @@ export interface AnalysisResult {
   warnings: string[];
   timingsMs: Record<string, number>;
   engineVersion: string;
+  /** Stabilisation diagram and FRF data, or null when neither was produced. */
+  extras: AnalysisExtras | null;
   analysedAt: Date;
 }
 

@@ -1,8 +1,9 @@
 /**
  * The `analysis` queue: payload schema, job id and enqueue helpers. One job per record,
- * id `analyse-<recordId>`, so a second enqueue of a waiting or running record is ignored
- * by BullMQ; the work itself is an upsert keyed by (record, settings version), so a retry
- * is harmless. Completed jobs are removed at once, which frees the id for a later reprocess
+ * id `analyse-<recordId>` (upload, sweeper: the asset's latest settings at run time), or
+ * `analyse-<recordId>-v<version>` for a reprocess pinned to a settings version, so a second
+ * enqueue of a waiting or running job is ignored by BullMQ; the work itself is an upsert
+ * keyed by (record, settings version), so a retry is harmless. Completed jobs are removed at once, which frees the id for a later reprocess
  * or sweep; failed ones are kept for inspection until replaced.
  */
 import { Queue, type Job, type JobsOptions } from "bullmq";
@@ -12,7 +13,11 @@ import { createRedisConnection } from "./connection";
 
 export const ANALYSIS_QUEUE = "analysis";
 
-export const AnalysisJob = z.strictObject({ recordId: z.uuid() });
+export const AnalysisJob = z.strictObject({
+  recordId: z.uuid(),
+  /** Analyse with this settings version; absent = the asset's latest at run time. */
+  settingsVersion: z.number().int().positive().optional(),
+});
 export type AnalysisJob = z.infer<typeof AnalysisJob>;
 
 /** Four attempts, 5 s then 10 s then 20 s apart (exponential backoff). */
@@ -23,8 +28,9 @@ export const ANALYSIS_JOB_OPTIONS: JobsOptions = {
   removeOnFail: { count: 5000 },
 };
 
-/** BullMQ job ids are strings without ':'; uuids qualify. */
-export const analysisJobId = (recordId: string): string => `analyse-${recordId}`;
+/** BullMQ job ids are strings without ':'; uuids qualify. A pinned version gets its own id. */
+export const analysisJobId = (recordId: string, settingsVersion?: number): string =>
+  settingsVersion === undefined ? `analyse-${recordId}` : `analyse-${recordId}-v${settingsVersion}`;
 
 const LIVE_STATES = new Set(["active", "waiting", "waiting-children", "delayed", "prioritized"]);
 
@@ -51,9 +57,11 @@ export function getAnalysisQueue(): Queue {
  * of the same id is removed first so the record runs again (sweeper, retry button).
  * @returns the job id and whether a new job was added (false: one is already live).
  */
-export async function enqueueAnalysis(recordId: string, options: { replaceFinished?: boolean } = {}): Promise<{ jobId: string; added: boolean }> {
-  const { recordId: id } = AnalysisJob.parse({ recordId });
-  const jobId = analysisJobId(id);
+export async function enqueueAnalysis(
+  recordId: string, options: { replaceFinished?: boolean; settingsVersion?: number } = {},
+): Promise<{ jobId: string; added: boolean }> {
+  const payload = AnalysisJob.parse({ recordId, settingsVersion: options.settingsVersion });
+  const jobId = analysisJobId(payload.recordId, payload.settingsVersion);
   const queue = getAnalysisQueue();
   const existing = await queue.getJob(jobId);
   if (existing) {
@@ -62,15 +70,21 @@ export async function enqueueAnalysis(recordId: string, options: { replaceFinish
     if (!options.replaceFinished) return { jobId, added: false };
     await existing.remove();
   }
-  await queue.add("analyse", { recordId: id } satisfies AnalysisJob, { jobId });
+  const data: AnalysisJob = payload.settingsVersion === undefined ? { recordId: payload.recordId } : payload;
+  await queue.add("analyse", data, { jobId });
   return { jobId, added: true };
 }
 
-/** Whether the record has a job waiting, delayed or running. */
-export async function hasLiveAnalysisJob(recordId: string): Promise<boolean> {
-  const job: Job | undefined = await getAnalysisQueue().getJob(analysisJobId(recordId));
-  if (!job) return false;
-  return LIVE_STATES.has(await job.getState());
+/**
+ * Whether the record has a job waiting, delayed or running: the unpinned one, or one pinned
+ * to any of `versions` (e.g. the asset's latest settings version).
+ */
+export async function hasLiveAnalysisJob(recordId: string, versions: readonly number[] = []): Promise<boolean> {
+  for (const id of [analysisJobId(recordId), ...versions.map((v) => analysisJobId(recordId, v))]) {
+    const job: Job | undefined = await getAnalysisQueue().getJob(id);
+    if (job && LIVE_STATES.has(await job.getState())) return true;
+  }
+  return false;
 }
 
 /** Close the producer and its connection (scripts, tests, worker shutdown). */

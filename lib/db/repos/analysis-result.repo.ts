@@ -7,7 +7,7 @@ import type { AnalysisResult, ModeAssignment, StoredMode } from "@/lib/domain/re
 
 const RESULT_COLS = [
   "id", "record_id", "settings_version", "verdict", "quality", "channels_used", "spectral", "singular_values", "warnings",
-  "timings_ms", "engine_version", "analysed_at",
+  "timings_ms", "engine_version", "extras", "analysed_at",
 ] as const;
 const MODE_COLS = [
   "id", "result_id", "mode_index", "frequency_hz", "damping_ratio", "damping_method", "damping_reliable", "mpc", "shape",
@@ -32,7 +32,7 @@ export async function upsertAnalysisResult(
     record_id: r.recordId, settings_version: r.settingsVersion, verdict: r.verdict, quality: JSON.stringify(r.quality),
     channels_used: r.channelsUsed, spectral: JSON.stringify(r.spectral), singular_values: JSON.stringify(r.singularValues),
     warnings: JSON.stringify(r.warnings), timings_ms: JSON.stringify(r.timingsMs), engine_version: r.engineVersion,
-    analysed_at: db.fn.now(),
+    extras: r.extras === null ? null : JSON.stringify(r.extras), analysed_at: db.fn.now(),
   };
   const [row] = await withDbErrors(() =>
     db("analysis_results").insert(values).onConflict(["record_id", "settings_version"]).merge().returning(RESULT_COLS),

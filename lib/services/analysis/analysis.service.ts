@@ -6,7 +6,7 @@
  */
 import { db } from "@/lib/db/knex";
 import { upsertAnalysisResult, type AssignmentWrite, type ModeWrite } from "@/lib/db/repos/analysis-result.repo";
-import { ensureAnalysisSettings } from "@/lib/db/repos/analysis-settings.repo";
+import { ensureAnalysisSettings, findAnalysisSettingsVersion } from "@/lib/db/repos/analysis-settings.repo";
 import { findRecordById, updateRecordProgress, updateRecordStatus } from "@/lib/db/repos/record.repo";
 import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
 import type { RecordStatus, TrackedMode } from "@/lib/domain/records";
@@ -39,14 +39,23 @@ export interface AnalyseOutcome {
   identifiedTracked: number;
 }
 
-export async function analyseRecord(recordId: string, opts: { onProgress?: (fraction: number) => Promise<void> | void } = {}): Promise<AnalyseOutcome> {
+/**
+ * Analyse one record with `opts.settingsVersion` (a reprocess) or else the asset's latest
+ * settings (version 1 is created with the defaults on first use).
+ */
+export async function analyseRecord(
+  recordId: string, opts: { settingsVersion?: number; onProgress?: (fraction: number) => Promise<void> | void } = {},
+): Promise<AnalyseOutcome> {
   const progress = async (p: number) => {
     await updateRecordProgress(db(), recordId, p);
     await opts.onProgress?.(p);
   };
   const record = await findRecordById(db(), recordId);
   if (!record) throw new PermanentAnalysisError(`record ${recordId} does not exist`);
-  const settingsRow = await ensureAnalysisSettings(db(), record.assetId, DEFAULT_ANALYSIS_SETTINGS);
+  const latestRow = await ensureAnalysisSettings(db(), record.assetId, DEFAULT_ANALYSIS_SETTINGS);
+  const settingsRow = opts.settingsVersion === undefined || opts.settingsVersion === latestRow.version
+    ? latestRow : await findAnalysisSettingsVersion(db(), record.assetId, opts.settingsVersion);
+  if (!settingsRow) throw new PermanentAnalysisError(`settings version ${opts.settingsVersion} of asset ${record.assetId} does not exist`);
   const settings = AnalysisSettingsSchema.parse(settingsRow.settings);
   await updateRecordStatus(db(), record.id, { status: "analysing", progress: 0.05, failureReason: null });
   await opts.onProgress?.(0.05);
@@ -85,7 +94,7 @@ export async function analyseRecord(recordId: string, opts: { onProgress?: (frac
         s2: identified.singularValues.s2 ? Array.from(identified.singularValues.s2) : null,
         s3: identified.singularValues.s3 ? Array.from(identified.singularValues.s3) : null,
       },
-      warnings: identified.warnings, timingsMs: identified.timingsMs, engineVersion: ENGINE_VERSION,
+      warnings: identified.warnings, timingsMs: identified.timingsMs, engineVersion: ENGINE_VERSION, extras: null,
     }, modes, assignments);
     await updateRecordStatus(trx, record.id, {
       status, progress: 1, analysedSettingsVersion: settingsRow.version,

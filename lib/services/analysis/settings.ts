@@ -10,6 +10,7 @@ export const AnalysisSettingsSchema = z.strictObject({
   bandHz: z.tuple([z.number().min(0), z.number().positive()]).refine(([lo, hi]) => lo < hi, "The band needs low < high.").nullable(),
   decimationTargetHz: z.number().positive().nullable(),
   nperseg: z.number().int().min(64).max(1 << 16).refine((n) => (n & (n - 1)) === 0, "Use a power of two.").nullable(),
+  overlap: z.number().min(0).max(0.9).optional(),
   methods: z.array(z.enum(["fdd", "ssi"])).min(1),
   quality: z.strictObject({
     flatRunS: z.number().positive().optional(),
@@ -32,6 +33,7 @@ export function identifyOptionsFor(settings: AnalysisSettingsValues, tracked: Tr
   const lowest = tracked.length ? Math.min(...tracked.map((t) => t.bandLowHz)) : settings.bandHz?.[0] || undefined;
   return {
     methods: settings.methods,
+    ...(settings.overlap !== undefined ? { overlap: settings.overlap } : {}),
     ...(settings.nperseg !== null && settings.nperseg <= recordLength ? { nperseg: settings.nperseg } : {}),
     ...(settings.nperseg === null && lowest ? { lowestFrequencyHz: lowest } : {}),
     quality: settings.quality,

@@ -4,6 +4,7 @@
  * enqueue) are queued again. Safe to run from several processes: the job id dedupes.
  */
 import { db } from "@/lib/db/knex";
+import { findLatestAnalysisSettings } from "@/lib/db/repos/analysis-settings.repo";
 import { listRecordsInStatus, updateRecordStatus } from "@/lib/db/repos/record.repo";
 import { enqueueAnalysis, hasLiveAnalysisJob } from "@/lib/jobs/analysis";
 
@@ -18,8 +19,14 @@ export async function sweepPendingRecords(options: { graceS?: number; limit?: nu
   const before = new Date(now.getTime() - (options.graceS ?? 60) * 1000);
   const pending = await listRecordsInStatus(db(), ["received", "queued", "analysing"], before, options.limit ?? 500);
   const requeued: string[] = [];
+  const latestVersion = new Map<string, number[]>();
   for (const r of pending) {
-    if (await hasLiveAnalysisJob(r.id)) continue;
+    // A reprocess pins its job to the asset's latest version (analyse-<id>-v<n>): count it as live too.
+    if (!latestVersion.has(r.assetId)) {
+      const latest = await findLatestAnalysisSettings(db(), r.assetId);
+      latestVersion.set(r.assetId, latest ? [latest.version] : []);
+    }
+    if (await hasLiveAnalysisJob(r.id, latestVersion.get(r.assetId))) continue;
     const { added } = await enqueueAnalysis(r.id, { replaceFinished: true });
     if (!added) continue;
     await updateRecordStatus(db(), r.id, { status: "queued" }, ["received", "queued", "analysing"]);

@@ -62,7 +62,7 @@ async function viewOf(record: VibrationRecord, withSpectra: boolean): Promise<Re
   const [latest] = await listResultsOfRecord(db(), record.id);
   if (!latest) return { record: toRecordJson(record), analysis: null };
   const [modes, assignments, tracked] = await Promise.all([
-    listModesOfResult(db(), latest.id), listAssignmentsOfResult(db(), latest.id), listTrackedModesOfAsset(db(), record.assetId),
+    listModesOfResult(db(), latest.id), listAssignmentsOfResult(db(), latest.id), listTrackedModesOfAsset(db(), record.assetId, { includeInactive: true }),
   ]);
   const modeById = new Map(modes.map((m) => [m.id, m]));
   const trackedModes = tracked.flatMap((t): TrackedModeOutcomeJson[] => {
