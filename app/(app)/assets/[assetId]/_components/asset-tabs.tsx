@@ -10,6 +10,7 @@ export function AssetTabs({ assetId }: { assetId: string }) {
   const base = `/assets/${assetId}`;
   const tabs = [
     { href: base, label: "Overview" },
+    { href: `${base}/records`, label: "Records" },
     { href: `${base}/sensors`, label: "Sensors" },
     { href: `${base}/gateways`, label: "Gateways" },
   ];

@@ -1,0 +1,53 @@
+"use client";
+
+/**
+ * Chart.js registration for the Records screens: only the pieces the scatter-with-lines
+ * charts use (tree-shaken build; nothing auto-registered).
+ */
+import { Chart, Legend, LinearScale, LineElement, LogarithmicScale, PointElement, ScatterController, Tooltip, type Plugin } from "chart.js";
+
+Chart.register(ScatterController, LineElement, PointElement, LinearScale, LogarithmicScale, Tooltip, Legend);
+
+/** Series colours (our own palette, distinct from the condition colours). */
+export const SERIES = {
+  s1: "#24466e",
+  s2: "#6f8fb3",
+  s3: "#b3c3d6",
+  peak: "#be1e3c",
+  band: "rgba(19, 138, 126, 0.12)",
+  bandEdge: "rgba(19, 138, 126, 0.55)",
+  grid: "#e4e7e2",
+  text: "#5a6470",
+};
+
+/** Vertical shaded bands (x in data units) drawn under the datasets, each with a small label. */
+export function bandsPlugin(id: string, bands: { lo: number; hi: number; label: string }[]): Plugin<"scatter"> {
+  return {
+    id,
+    beforeDatasetsDraw(chart) {
+      const x = chart.scales.x;
+      const { top, bottom } = chart.chartArea;
+      const ctx = chart.ctx;
+      ctx.save();
+      ctx.font = "11px ui-sans-serif, system-ui, sans-serif";
+      for (const b of bands) {
+        const x0 = Math.max(x.getPixelForValue(b.lo), chart.chartArea.left);
+        const x1 = Math.min(x.getPixelForValue(b.hi), chart.chartArea.right);
+        if (x1 <= x0) continue;
+        ctx.fillStyle = SERIES.band;
+        ctx.fillRect(x0, top, x1 - x0, bottom - top);
+        ctx.strokeStyle = SERIES.bandEdge;
+        ctx.setLineDash([3, 3]);
+        ctx.beginPath();
+        ctx.moveTo(x0, top);
+        ctx.lineTo(x0, bottom);
+        ctx.moveTo(x1, top);
+        ctx.lineTo(x1, bottom);
+        ctx.stroke();
+        ctx.fillStyle = "#0b5f57";
+        ctx.fillText(b.label, x0 + 3, top + 12, Math.max(40, x1 - x0 + 60));
+      }
+      ctx.restore();
+    },
+  };
+}
