@@ -30,23 +30,26 @@ const segmentLengthField = z.preprocess(
   ]),
 );
 
+/** A number that may be left out, empty or null (→ null: no limit / automatic). */
+const optionalNumber = (label: string) => z.preprocess((v) => (v === undefined ? null : v), nullableNumberField(label));
+
 const positiveOrNull = (label: string) =>
-  nullableNumberField(label).refine((v) => v === null || v > 0, `${label} must be greater than 0.`);
+  optionalNumber(label).refine((v) => v === null || v > 0, `${label} must be greater than 0.`);
 
 /**
  * New analysis settings of an asset (saved as a new version): band of interest, decimation
  * target, segment length and overlap, methods and data-quality limits.
  */
 export const UpdateAnalysisSettingsInput = z.object({
-  bandLowHz: nullableNumberField("Band low edge").refine((v) => v === null || v >= 0, "Band low edge must be ≥ 0 Hz."),
+  bandLowHz: optionalNumber("Band low edge").refine((v) => v === null || v >= 0, "Band low edge must be ≥ 0 Hz."),
   bandHighHz: positiveOrNull("Band high edge"),
   decimationTargetHz: positiveOrNull("Decimation target"),
   segmentLength: segmentLengthField,
-  overlap: nullableNumberField("Overlap").refine((v) => v === null || (v >= 0 && v <= 0.9), "Overlap must be between 0 and 0.9."),
+  overlap: optionalNumber("Overlap").refine((v) => v === null || (v >= 0 && v <= 0.9), "Overlap must be between 0 and 0.9."),
   methods: methodsField,
   flatRunS: positiveOrNull("Flat-line limit"),
   spikeSigma: positiveOrNull("Spike threshold"),
-  minRms: nullableNumberField("Minimum RMS").refine((v) => v === null || v >= 0, "Minimum RMS must be ≥ 0."),
+  minRms: optionalNumber("Minimum RMS").refine((v) => v === null || v >= 0, "Minimum RMS must be ≥ 0."),
   fullScale: positiveOrNull("Sensor full scale"),
 }).superRefine((v, ctx) => {
   if ((v.bandLowHz === null) !== (v.bandHighHz === null)) {
