@@ -1,0 +1,188 @@
+/**
+ * Records screens in the browser (issue 4 check "Browser"): an engineer opens an analysed
+ * record, sees the singular value spectrum with its picked peaks, starts tracking a mode and
+ * reprocesses the record, after which the mode is assigned to the new tracked mode; an owner
+ * sees the same page without any control. The record is simulated here, uploaded through the
+ * gateway API with the demo gateway key and analysed by the real worker of the e2e stage.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEMO_ASSETS } from "@/db/seeds/larkspur/data";
+import { demoGatewayKey } from "@/db/seeds/larkspur/seed-demo";
+import { simulateAmbientRecord } from "@/lib/simulate";
+import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
+import { readDemoSignIns, screenshot, signIn } from "./flows";
+
+const ASSET = DEMO_ASSETS.find((a) => a.gateway.slug === "millrace");
+if (!ASSET) throw new Error("the demo seed has no Millrace Footbridge");
+const SPAN = ASSET.mainDimensionM;
+const FS = 50;
+const DURATION_S = 300;
+// Invented modal model of the 42 m span: vertical bending sin(nπx/L) on the z channels (simply
+// supported beam shapes [pub: Clough & Penzien, distributed-parameter systems]), a lateral mode
+// on the y channel. The record is made from these; the test looks for them in the analysis.
+const MODES = [
+  { frequencyHz: 2.2, dampingRatio: 0.01, shape: (c: { x: number; direction: string }) => (c.direction === "z" ? Math.sin((Math.PI * c.x) / SPAN) : 0.05) },
+  { frequencyHz: 3.6, dampingRatio: 0.012, shape: (c: { x: number; direction: string }) => (c.direction === "y" ? 1 : 0.03) },
+  { frequencyHz: 7.9, dampingRatio: 0.01, shape: (c: { x: number; direction: string }) => (c.direction === "z" ? Math.sin((2 * Math.PI * c.x) / SPAN) : 0.02) },
+];
+
+/** float32 little-endian, interleaved sample by sample (the upload contract of PRODUCT.md). */
+function f32Of(data: Float64Array[]): Blob {
+  const n = data[0].length;
+  const out = new Float32Array(n * data.length);
+  for (let k = 0; k < n; k++) for (let c = 0; c < data.length; c++) out[k * data.length + c] = data[c][k];
+  return new Blob([out.buffer], { type: "application/octet-stream" });
+}
+
+async function uploadSimulatedRecord(key: string): Promise<string> {
+  const layout = ASSET!.channels.map((c) => ({ code: c.code, x: c.positionM.x, direction: c.direction }));
+  const rec = simulateAmbientRecord({
+    modes: MODES.map((m) => ({ frequencyHz: m.frequencyHz, dampingRatio: m.dampingRatio, shape: layout.map(m.shape) })),
+    sampleRateHz: FS, durationS: DURATION_S, seed: Date.now() % 100000,
+  });
+  const form = new FormData();
+  form.set("meta", new Blob([JSON.stringify({
+    recordId: `e2e-${Date.now()}`, startedAt: new Date(Date.now() - 10 * 60_000).toISOString(), sampleRateHz: FS,
+    channels: layout.map((c) => c.code), units: "m/s2", temperatureC: 11.5,
+  })], { type: "application/json" }));
+  form.set("data", f32Of(rec.data), "record.f32");
+  const res = await fetch(`${appUrl()}/api/v1/records`, { method: "POST", headers: { authorization: `Bearer ${key}` }, body: form });
+  const body = (await res.json()) as { record?: { id: string }; error?: { message: string } };
+  if (res.status !== 202 || !body.record) throw new Error(`upload answered ${res.status}: ${JSON.stringify(body)}`);
+  return body.record.id;
+}
+
+/** Poll `GET /api/v1/records/:id` (as the sending gateway) until the worker has analysed it. */
+async function waitUntilAnalysed(key: string, id: string): Promise<void> {
+  for (let i = 0; i < 120; i++) {
+    const res = await fetch(`${appUrl()}/api/v1/records/${id}`, { headers: { authorization: `Bearer ${key}` } });
+    const body = (await res.json()) as { record: { status: string; failureReason: string | null } };
+    if (body.record.status === "analysed") return;
+    if (body.record.status === "failed" || body.record.status === "rejected") throw new Error(`record ${body.record.status}: ${body.record.failureReason}`);
+    await new Promise((r) => setTimeout(r, 1000));
+  }
+  throw new Error("the worker did not analyse the record within 120 polls");
+}
+
+/** Frequencies shown in the modal table, in Hz. */
+async function tableFrequencies(b: BrowserSession): Promise<{ index: number; hz: number }[]> {
+  const rows = b.page.locator("[data-mode-row]");
+  const n = await rows.count();
+  const out: { index: number; hz: number }[] = [];
+  for (let i = 0; i < n; i++) {
+    const cell = await rows.nth(i).locator("td").nth(1).innerText();
+    out.push({ index: Number(await rows.nth(i).getAttribute("data-mode-row")), hz: parseFloat(cell) });
+  }
+  return out;
+}
+
+describe("Records screens", () => {
+  let users: Record<string, { email: string; password: string }>;
+  let recordId: string;
+  const key = demoGatewayKey(ASSET.gateway.slug);
+  const recordUrl = () => `${appUrl()}/assets/${ASSET.id}/records/${recordId}`;
+
+  beforeAll(async () => {
+    recordId = await uploadSimulatedRecord(key);
+    await waitUntilAnalysed(key, recordId);
+    const b = await openBrowser();
+    try {
+      users = await readDemoSignIns(b.page, appUrl());
+    } finally {
+      await b.close();
+    }
+  });
+
+  describe("an engineer", () => {
+    let b: BrowserSession;
+    beforeAll(async () => {
+      b = await openBrowser();
+      await signIn(b.page, appUrl(), users.engineer.email, users.engineer.password);
+      await b.page.waitForURL(`${appUrl()}/`);
+    });
+    afterAll(async () => {
+      await b?.close();
+    });
+
+    it("finds the record in the asset's Records list and opens it", async () => {
+      const { page } = b;
+      await page.goto(`${appUrl()}/assets/${ASSET.id}`);
+      await page.getByRole("navigation", { name: "Asset sections" }).getByRole("link", { name: "Records" }).click();
+      await page.waitForURL(/\/records$/);
+      const row = page.locator(`[data-record-row="${recordId}"]`);
+      await row.waitFor();
+      expect(await row.getAttribute("data-status")).toBe("analysed");
+      expect(await row.locator("[data-verdict]").getAttribute("data-verdict")).toBe("accept");
+      await screenshot(page, "records-list-engineer");
+      await row.getByRole("link").first().click();
+      await page.waitForURL(recordUrl());
+    });
+
+    it("sees the singular value spectrum with a picked peak at each simulated mode", async () => {
+      const { page } = b;
+      const chart = page.getByTestId("spectrum-chart");
+      await chart.locator("canvas").waitFor();
+      const found = await tableFrequencies(b);
+      expect(Number(await chart.getAttribute("data-peaks"))).toBe(found.length);
+      // Each mode the record was simulated from is identified within 2 % of its input frequency
+      // (300 s at ζ ≈ 1 %: random error ≈ √(ζ/(2πfT)) < 0.5 % [pub: Bendat & Piersol §8.5]).
+      for (const m of MODES) expect(found.some((f) => Math.abs(f.hz / m.frequencyHz - 1) < 0.02)).toBe(true);
+      expect(await page.getByTestId("mode-shape").locator("svg").count()).toBe(2);
+      await screenshot(page, "record-engineer");
+    });
+
+    it("starts tracking a mode, reprocesses, and the mode is then assigned to it", async () => {
+      const { page } = b;
+      const first = (await tableFrequencies(b)).find((f) => Math.abs(f.hz / MODES[0].frequencyHz - 1) < 0.02);
+      expect(first).toBeDefined();
+      const row = page.locator(`[data-mode-row="${first!.index}"]`);
+      const label = `first vertical bending ${Date.now()}`;
+      await row.getByRole("button", { name: "Track this mode" }).click();
+      const form = page.getByTestId("track-mode-form");
+      await form.getByRole("button", { name: "Start tracking" }).click();
+      await form.locator("#f-label-error").waitFor();
+      expect(await form.locator("#f-label-error").innerText()).toMatch(/label is required/i);
+      await form.getByLabel("Label").fill(label);
+      await form.getByRole("button", { name: "Start tracking" }).click();
+      await page.getByText(`Now tracking “${label}”`).waitFor();
+
+      await page.getByTestId("record-controls").getByRole("button", { name: "Reprocess" }).click();
+      await page.getByTestId("record-controls").getByText("Queued for analysis.").waitFor();
+      // The page refreshes itself while the record is queued and analysed again.
+      await page.waitForFunction((id) => {
+        const el = document.querySelector("[data-testid=record-page]");
+        return el?.getAttribute("data-status") === "analysed" && document.querySelector(`[data-mode-row] [data-tracked-label]`) !== null && id !== "";
+      }, recordId, { timeout: 90_000 });
+      const labels = await page.locator("[data-mode-row] [data-tracked-label]").allInnerTexts();
+      expect(labels).toContain(label);
+      const tracked = page.locator("[data-mode-row]", { has: page.locator("[data-tracked-label]", { hasText: label }) });
+      const hz = parseFloat(await tracked.locator("td").nth(1).innerText());
+      expect(Math.abs(hz / MODES[0].frequencyHz - 1)).toBeLessThan(0.02);
+      expect(Number(await page.getByTestId("spectrum-chart").getAttribute("data-bands"))).toBeGreaterThanOrEqual(1);
+      await screenshot(page, "record-engineer-tracked");
+    });
+  });
+
+  describe("an owner", () => {
+    let b: BrowserSession;
+    beforeAll(async () => {
+      b = await openBrowser();
+      await signIn(b.page, appUrl(), users.owner.email, users.owner.password);
+      await b.page.waitForURL(`${appUrl()}/`);
+    });
+    afterAll(async () => {
+      await b?.close();
+    });
+
+    it("sees the same record page without tracking, reprocessing or retry controls", async () => {
+      const { page } = b;
+      await page.goto(recordUrl());
+      await page.getByTestId("spectrum-chart").locator("canvas").waitFor();
+      expect(await page.locator("[data-mode-row]").count()).toBeGreaterThan(0);
+      expect(await page.getByTestId("record-controls").count()).toBe(0);
+      expect(await page.getByRole("button", { name: "Track this mode" }).count()).toBe(0);
+      expect(await page.getByRole("button", { name: /Reprocess|Retry/ }).count()).toBe(0);
+      await screenshot(page, "record-owner");
+    });
+  });
+});
