@@ -21,7 +21,8 @@ import { analyseRecord } from "@/lib/services/analysis/analysis.service";
 import { listRecords, type RecordDetail } from "@/lib/services/analysis/records.service";
 import type { TrackedModeView } from "@/lib/services/tracking/tracked-mode.service";
 import { closeRateLimiter } from "@/lib/services/ingest/rate-limit";
-import { shearFrameModes, simulateAmbientRecord } from "@/lib/simulate";
+import { addChannel } from "@/lib/services/assets/asset.service";
+import { shearFrameModes, simulateAmbientRecord, simulateForcedTest } from "@/lib/simulate";
 import { processAnalysisJob } from "@/workers/analysis.worker";
 import { call, makeTeam, tokenFor, unique } from "./support/factories";
 import { CHANNELS, f32Of, makeGatewayAsset, metaOf, noiseRecord, send, uploadRequest, type GatewaySetup } from "./support/uploads";
@@ -255,5 +256,41 @@ describe("records list and range reprocessing", () => {
     const statuses = await db()("records").whereIn("id", ids).orderBy("started_at").pluck("status");
     expect(statuses).toEqual(["analysed", "queued", "queued", "analysed", "analysed"]);
     for (const id of [ids[1], ids[2]]) expect(await getAnalysisQueue().getJob(analysisJobId(id, 1))).toBeDefined();
+  });
+});
+
+describe("a forced-test record with a force channel", () => {
+  it("leaves the force channel out of the identification and stores FRFs peaking at the closed-form frequencies", async () => {
+    const h = await makeGatewayAsset();
+    await addChannel(h.team.engineer.actor, h.asset.id, { code: "P1", positionM: { x: 0, y: 0, z: 12 }, direction: "x", quantity: "force", units: "N" });
+    const sim = simulateForcedTest({
+      // ζ = 3 %: the half-power bandwidth 2ζf ≥ 0.16 Hz spans ≥ 3 lines of 0.049 Hz, so the
+      // resolution bias that lowers γ² at a sharp resonance stays small [pub: Bendat & Piersol §9.1.4].
+      modes: FRAME.map((m) => ({ frequencyHz: m.frequencyHz, dampingRatio: 0.03, shape: m.shape })), driveChannel: 3,
+      sampleRateHz: 100, durationS: 200, seed: 5, excitation: { kind: "random", forceRmsN: 200 },
+    });
+    const r = await send(recordsUpload.POST, uploadRequest({
+      key: h.key, meta: metaOf({ channels: [...CHANNELS, "P1"] }), data: f32Of([...sim.data, sim.force]), type: "application/octet-stream",
+    }));
+    expect(r.status).toBe(202);
+    const id = r.body.record!.id;
+    await analyseRecord(id);
+    const d = (await call(recordRoute.GET, { token: await tokenFor(h.team.owner), params: { assetId: h.asset.id, recordId: id } })).body as unknown as RecordDetail;
+    expect(d.analysis!.channelsUsed).toEqual(CHANNELS);
+    const frf = d.analysis!.frf!;
+    expect(frf.forceChannel).toBe("P1");
+    expect(frf.channels.map((c) => c.channel)).toEqual(CHANNELS);
+    const drive = frf.channels[3];
+    const df = frf.frequencyHz[1] - frf.frequencyHz[0];
+    for (const m of FRAME) {
+      // |H| peaks at each natural frequency (closed form [Chopra]) within two kept lines.
+      let best = -1;
+      frf.frequencyHz.forEach((f, i) => {
+        if (f > 0.9 * m.frequencyHz && f < 1.1 * m.frequencyHz && (best < 0 || drive.magnitude[i] > drive.magnitude[best])) best = i;
+      });
+      expect(Math.abs(frf.frequencyHz[best] - m.frequencyHz)).toBeLessThanOrEqual(2 * df);
+      // Noise-free force and response: γ² ≈ 1 at resonance [pub: Bendat & Piersol §6.1.3]; 0.9 allows leakage.
+      expect(drive.coherence[best]).toBeGreaterThan(0.9);
+    }
   });
 });

@@ -8,6 +8,7 @@ import { db } from "@/lib/db/knex";
 import { upsertAnalysisResult, type AssignmentWrite, type ModeWrite } from "@/lib/db/repos/analysis-result.repo";
 import { ensureAnalysisSettings, findAnalysisSettingsVersion } from "@/lib/db/repos/analysis-settings.repo";
 import { findRecordById, updateRecordProgress, updateRecordStatus } from "@/lib/db/repos/record.repo";
+import { listChannelsOfAsset } from "@/lib/db/repos/sensor-channel.repo";
 import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
 import type { RecordStatus, TrackedMode } from "@/lib/domain/records";
 import { isAppError } from "@/lib/http/errors";
@@ -17,6 +18,7 @@ import { decimate } from "@/lib/signal/decimate";
 import { toMetresPerSecondSquared } from "@/lib/signal/units";
 import { blobStore } from "@/lib/storage";
 import { decodeSamples } from "@/lib/services/ingest/decode";
+import { frfExtras } from "./extras";
 import { AnalysisSettingsSchema, DEFAULT_ANALYSIS_SETTINGS, identifyOptionsFor } from "./settings";
 
 /** Stored with each result so later engine changes can be told apart. */
@@ -68,17 +70,25 @@ export async function analyseRecord(
   } catch (e) {
     throw new PermanentAnalysisError(`the raw samples do not decode: ${isAppError(e) ? e.message : String(e)}`);
   }
-  data = data.map((x) => toMetresPerSecondSquared(x, record.units));
+  // A force channel (forced test) is left out of the output-only identification and used for FRFs.
+  const forceCodes = new Set((await listChannelsOfAsset(db(), record.assetId)).filter((c) => c.quantity === "force").map((c) => c.code));
+  const forceIdx = record.channels.findIndex((c) => forceCodes.has(c));
+  let force = forceIdx >= 0 ? data[forceIdx] : null;
+  const channels = record.channels.filter((_, i) => i !== forceIdx);
+  data = data.filter((_, i) => i !== forceIdx).map((x) => toMetresPerSecondSquared(x, record.units));
   let fs = record.sampleRateHz;
   const q = settings.decimationTargetHz ? Math.floor(fs / settings.decimationTargetHz) : 1;
   if (q >= 2) {
     data = data.map((x) => decimate(x, q));
+    if (force) force = decimate(force, q);
     fs /= q;
   }
   await progress(0.2);
 
   const tracked = await listTrackedModesOfAsset(db(), record.assetId);
-  const identified = identifyModes({ sampleRateHz: fs, channels: record.channels, data }, identifyOptionsFor(settings, tracked, data[0].length));
+  const identified = identifyModes({ sampleRateHz: fs, channels, data }, identifyOptionsFor(settings, tracked, data[0].length));
+  const frf = force && forceIdx >= 0
+    ? frfExtras(fs, record.channels[forceIdx], force, channels, data, identified.spectral.nperseg || 2048) : null;
   await progress(0.8);
 
   const verdict = identified.quality.verdict;
@@ -94,7 +104,8 @@ export async function analyseRecord(
         s2: identified.singularValues.s2 ? Array.from(identified.singularValues.s2) : null,
         s3: identified.singularValues.s3 ? Array.from(identified.singularValues.s3) : null,
       },
-      warnings: identified.warnings, timingsMs: identified.timingsMs, engineVersion: ENGINE_VERSION, extras: null,
+      warnings: identified.warnings, timingsMs: identified.timingsMs, engineVersion: ENGINE_VERSION,
+      extras: frf ? { stabilisation: null, frf } : null,
     }, modes, assignments);
     await updateRecordStatus(trx, record.id, {
       status, progress: 1, analysedSettingsVersion: settingsRow.version,

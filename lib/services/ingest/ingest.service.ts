@@ -124,15 +124,22 @@ function parseMetaJson(text: string): unknown {
   return value;
 }
 
+/**
+ * Every code must be an active channel of the asset: accelerometers, plus at most one force
+ * channel (a forced test: the analysis leaves it out of the identification and computes FRFs).
+ */
 async function assertChannelsConfigured(assetId: string, codes: string[]): Promise<void> {
-  const configured = new Set((await listChannelsOfAsset(db(), assetId)).filter((c) => c.active && c.quantity === "acceleration").map((c) => c.code));
+  const active = (await listChannelsOfAsset(db(), assetId)).filter((c) => c.active);
+  const configured = new Set(active.map((c) => c.code));
+  const forceCodes = new Set(active.filter((c) => c.quantity === "force").map((c) => c.code));
   const unknown = codes.filter((c) => !configured.has(c));
-  if (unknown.length) {
-    const message = `Channels not configured (or inactive) on the asset: ${unknown.join(", ")}.`;
-    throw new AppError("unprocessable", message, {
-      details: { field: "meta.channels", rule: "channels_configured", unknown }, fieldErrors: { "meta.channels": [message] },
-    });
-  }
+  const forces = codes.filter((c) => forceCodes.has(c));
+  const refuse = (rule: string, message: string, extra: Record<string, unknown>) => new AppError("unprocessable", message, {
+    details: { field: "meta.channels", rule, ...extra }, fieldErrors: { "meta.channels": [message] },
+  });
+  if (unknown.length) throw refuse("channels_configured", `Channels not configured (or inactive) on the asset: ${unknown.join(", ")}.`, { unknown });
+  if (forces.length > 1) throw refuse("one_force_channel", `At most one force channel per record (got ${forces.join(", ")}).`, { forces });
+  if (forces.length === codes.length) throw refuse("acceleration_channels", "A record needs at least one acceleration channel.", { forces });
 }
 
 async function assertLongEnough(assetId: string, durationS: number): Promise<void> {
