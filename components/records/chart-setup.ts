@@ -51,3 +51,11 @@ export function bandsPlugin(id: string, bands: { lo: number; hi: number; label: 
     },
   };
 }
+
+/** Log-axis tick labels: only the decades, as 1e-3 style (the minor ticks stay unlabelled). */
+export function decadeTick(value: number | string): string {
+  const v = Number(value);
+  if (!(v > 0)) return "";
+  const e = Math.log10(v);
+  return Math.abs(e - Math.round(e)) < 1e-9 ? `1e${Math.round(e)}` : "";
+}

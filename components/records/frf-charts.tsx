@@ -3,7 +3,7 @@
 import { useMemo } from "react";
 import { Scatter } from "react-chartjs-2";
 import type { ChartOptions } from "chart.js";
-import { SERIES } from "./chart-setup";
+import { decadeTick, SERIES } from "./chart-setup";
 import type { FrfView } from "./types";
 
 const PALETTE = ["#24466e", "#138a7e", "#d99a16", "#be1e3c", "#6f8fb3", "#5b4a8a", "#3f4a5a", "#9c6b3d"];
@@ -21,7 +21,7 @@ function opts(yTitle: string, log: boolean, range?: [number, number]): ChartOpti
     animation: false, maintainAspectRatio: false, parsing: false,
     scales: {
       x: { type: "linear", title: { display: true, text: "Frequency (Hz)", color: SERIES.text }, grid: { color: SERIES.grid } },
-      y: { type: log ? "logarithmic" : "linear", min: range?.[0], max: range?.[1], title: { display: true, text: yTitle, color: SERIES.text }, grid: { color: SERIES.grid } },
+      y: { type: log ? "logarithmic" : "linear", min: range?.[0], max: range?.[1], ...(log ? { ticks: { callback: decadeTick, autoSkip: false } } : {}), title: { display: true, text: yTitle, color: SERIES.text }, grid: { color: SERIES.grid } },
     },
     plugins: { legend: { position: "top", align: "end", labels: { boxWidth: 14, boxHeight: 2, color: SERIES.text } } },
   };

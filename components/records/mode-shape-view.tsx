@@ -33,6 +33,19 @@ function scaler(values: number[], lo: number, hi: number, minRange: number, inve
   return (u: number) => (invert ? hi - ((u - a) / (b - a)) * (hi - lo) : lo + ((u - a) / (b - a)) * (hi - lo));
 }
 
+/** One label per projected point: nodes that fall on one spot in this view share it. */
+function labels(nodes: ShapeNode[], at: (n: ShapeNode) => readonly [number, number]) {
+  const byPoint = new Map<string, { x: number; y: number; codes: string[] }>();
+  for (const n of nodes) {
+    const [x, y] = at(n);
+    const k = `${Math.round(x)}:${Math.round(y)}`;
+    const e = byPoint.get(k) ?? { x, y, codes: [] };
+    e.codes.push(...n.codes.map((c) => (n.measured ? c : `${c} (not used)`)));
+    byPoint.set(k, e);
+  }
+  return [...byPoint.values()].map((e) => ({ x: e.x, y: e.y, text: e.codes.join(" · ") }));
+}
+
 function ProjectedView({ spec, nodes, line, factor }: { spec: ViewSpec; nodes: ShapeNode[]; line: Station[]; factor: number }) {
   const pts: Vec3[] = [...nodes.map((n) => n.position), ...line.map((s) => s.position)];
   const extent = Math.max(...(["x", "y", "z"] as const).map((a) => Math.max(...pts.map((p) => p[a])) - Math.min(...pts.map((p) => p[a]))), 1);
@@ -60,13 +73,12 @@ function ProjectedView({ spec, nodes, line, factor }: { spec: ViewSpec; nodes: S
               <line x1={x0} y1={y0} x2={x1} y2={y1} stroke="#be1e3c" strokeWidth={1} opacity={0.6} />
               <circle cx={x0} cy={y0} r={3} fill="#ffffff" stroke="#8a929c" />
               {n.measured ? <circle cx={x1} cy={y1} r={4} fill="#be1e3c" /> : null}
-              <text x={x0 + 5} y={y0 + 14} fontSize={10} fill={n.measured ? "#5a6470" : "#8a929c"}>
-                {n.codes.join(" ")}
-                {n.measured ? "" : " (not used)"}
-              </text>
             </g>
           );
         })}
+        {labels(nodes, (n) => at(n.position, n.displacement, 0)).map((l) => (
+          <text key={l.text} x={l.x + 5} y={l.y + 14} fontSize={10} fill="#5a6470">{l.text}</text>
+        ))}
       </svg>
     </figure>
   );

@@ -3,7 +3,7 @@
 import { useMemo } from "react";
 import { Scatter } from "react-chartjs-2";
 import type { ChartData, ChartOptions } from "chart.js";
-import { bandsPlugin, SERIES } from "./chart-setup";
+import { bandsPlugin, decadeTick, SERIES } from "./chart-setup";
 import type { ModeView, SpectraView, TrackedModeView } from "./types";
 
 type Pt = { x: number; y: number };
@@ -85,7 +85,7 @@ export function SpectrumChart({
     },
     scales: {
       x: { type: "linear", min: 0, max: fMax, title: { display: true, text: "Frequency (Hz)", color: SERIES.text }, grid: { color: SERIES.grid } },
-      y: { type: "logarithmic", title: { display: true, text: "Singular value ((m/s²)²/Hz)", color: SERIES.text }, grid: { color: SERIES.grid } },
+      y: { type: "logarithmic", ticks: { callback: decadeTick, autoSkip: false }, title: { display: true, text: "Singular value ((m/s²)²/Hz)", color: SERIES.text }, grid: { color: SERIES.grid } },
     },
     plugins: {
       legend: { position: "top", align: "end", labels: { boxWidth: 14, boxHeight: 2, color: SERIES.text } },

@@ -46,7 +46,7 @@ export function RecordWorkbench({
           renderAction={canTrack ? (m) => (m.tracked ? null : (
             <Button size="sm" variant="quiet" onClick={() => { setSelected(m.modeIndex); setTracking(m.modeIndex); }}>Track this mode</Button>
           )) : undefined}
-          renderExpanded={canTrack ? (m) => (tracking === m.modeIndex ? (
+          renderExpanded={canTrack ? (m) => (tracking === m.modeIndex && !m.tracked ? (
             <TrackModeForm assetId={assetId} recordId={recordId} mode={m} onDone={() => setTracking(null)} />
           ) : null) : undefined}
         />
