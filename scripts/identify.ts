@@ -85,6 +85,9 @@ function main(): void {
   const options: IdentifyOptions = { methods: method === "both" ? ["fdd", "ssi"] : [method as "fdd" | "ssi"] };
   if (args.bands) {
     options.bandsHz = parseBands(args.bands);
+    // The lowest band edge drives the automatic segment-length rule (and its warning when
+    // the record is too short for trustworthy damping).
+    options.lowestFrequencyHz = Math.min(...options.bandsHz.map((b) => b[0]));
     // SSI-COV cost grows with the sample count: decimate to a rate that keeps the bands
     // below 0.8 of the new Nyquist (the FDD path keeps the full rate).
     const top = Math.max(...options.bandsHz.map((b) => b[1]));
