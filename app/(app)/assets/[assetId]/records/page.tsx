@@ -42,7 +42,7 @@ export default async function RecordsPage({ params, searchParams }: { params: Pr
   const cursor = one(sp.cursor);
   const query: RecordsQuery = {
     status, cursor, limit: PAGE_SIZE,
-    from: from && !errors.to ? from.toISOString() : undefined,
+    from: from ? from.toISOString() : undefined,
     to: to && !errors.to ? to.toISOString() : undefined,
   };
 
