@@ -44,6 +44,16 @@ const Env = z.object({
   /** Optional MapLibre style URL for users with their own tile server; empty = offline basemap. */
   MAP_STYLE_URL: z.string().default(""),
   STORAGE_DRIVER: z.enum(["fs", "s3"]).default("fs"),
+  /** S3 driver (STORAGE_DRIVER=s3): endpoint URL of an S3-compatible store; empty = AWS for S3_REGION. */
+  S3_ENDPOINT: z.string().default(""),
+  /** S3 driver: bucket holding the raw records (must exist). */
+  S3_BUCKET: z.string().default(""),
+  S3_REGION: z.string().min(1).default("us-east-1"),
+  /** S3 driver: static credentials; both empty = the SDK's default credential chain. */
+  S3_ACCESS_KEY_ID: z.string().default(""),
+  S3_SECRET_ACCESS_KEY: z.string().default(""),
+  /** S3 driver: path-style addressing (http://host/bucket/key), needed by most S3-compatible stores. */
+  S3_FORCE_PATH_STYLE: z.enum(["0", "1", "true", "false"]).default("0").transform((v) => v === "1" || v === "true"),
   LOG_LEVEL: z.enum(["debug", "info", "warn", "error"]).default("info"),
   /** Largest upload body accepted by POST /api/v1/records, bytes (compressed size as sent); default 64 MiB. */
   UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).default(64 * 1024 * 1024),

@@ -1,11 +1,13 @@
 /**
  * The process's blob store, chosen by STORAGE_DRIVER: `fs` (default) keeps blobs under
- * MODEWARDEN_DATA_DIR/blobs. The S3 driver is not written yet and fails at first use.
+ * MODEWARDEN_DATA_DIR/blobs; `s3` keeps them in S3_BUCKET (S3_ENDPOINT, S3_REGION,
+ * S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY, S3_FORCE_PATH_STYLE).
  */
 import path from "node:path";
 import { env } from "@/lib/config/env";
 import type { BlobStore } from "./blob-store";
 import { FsBlobStore } from "./fs-blob-store";
+import { S3BlobStore } from "./s3-blob-store";
 
 export { contentKey, sha256Hex, type BlobStore } from "./blob-store";
 
@@ -14,8 +16,16 @@ const globalForStore = globalThis as unknown as { __modewardenBlobStore?: BlobSt
 export function blobStore(): BlobStore {
   if (!globalForStore.__modewardenBlobStore) {
     const e = env();
-    if (e.STORAGE_DRIVER !== "fs") throw new Error(`STORAGE_DRIVER=${e.STORAGE_DRIVER} is not available yet; use fs`);
-    globalForStore.__modewardenBlobStore = new FsBlobStore(blobRoot());
+    globalForStore.__modewardenBlobStore = e.STORAGE_DRIVER === "s3"
+      ? new S3BlobStore({
+          bucket: e.S3_BUCKET,
+          region: e.S3_REGION,
+          endpoint: e.S3_ENDPOINT,
+          accessKeyId: e.S3_ACCESS_KEY_ID,
+          secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+          forcePathStyle: e.S3_FORCE_PATH_STYLE,
+        })
+      : new FsBlobStore(blobRoot());
   }
   return globalForStore.__modewardenBlobStore;
 }
