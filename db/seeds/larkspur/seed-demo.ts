@@ -10,6 +10,7 @@ import { hashPassword } from "../../../lib/auth/passwords";
 import { GATEWAY_KEY_PREFIX, hashSecret } from "../../../lib/auth/tokens";
 import { DEMO_ORGANISATION, DEMO_SIGN_INS } from "../demo-users";
 import { DEMO_ASSETS, DEMO_USER_IDS } from "./data";
+import { seedDemoHistory } from "./demo-history";
 
 /**
  * Deterministic demo gateway keys (so the gateway simulator can upload to the demo
@@ -81,4 +82,6 @@ export async function seedLarkspurDemo(knex: Knex): Promise<void> {
         .merge(["name", "key_hash", "key_prefix"]);
     }
   });
+  // About a year of analysed history per asset (skips what is already there).
+  await seedDemoHistory(knex);
 }
