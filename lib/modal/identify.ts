@@ -13,7 +13,7 @@ import { halfPowerDamping } from "./half-power";
 import { mac, mpc } from "./mac";
 import { pickFddPeaks, type FddPeak, type PeakPickingOptions } from "./peak-picking";
 import { realiseShape } from "./shape";
-import { identifyModesSsiCov, type SsiCovOptions, type SsiMode } from "./ssi-cov";
+import { identifyModesSsiCov, type SsiCovOptions, type SsiMode, type StabilisationPoint } from "./ssi-cov";
 import { validateIdentifyInput, type IdentifyOptions, type ModalRecord } from "./identify-options";
 
 export type { IdentifyOptions, ModalRecord } from "./identify-options";
@@ -51,7 +51,15 @@ export interface IdentifyResult {
   quality: QualityReport;
   warnings: string[];
   timingsMs: Record<string, number>;
+  /**
+   * SSI-COV's stabilisation diagram, present when SSI-COV ran: the physical poles only
+   * (0 < ζ ≤ 0.2, below Nyquist), frequency rounded to 6 and damping to 4 significant digits.
+   */
+  stabilisation?: StabilisationPoint[];
 }
+
+/** Largest damping ratio of a pole drawn on the diagram (SSI-COV's maxDampingRatio default) [practice]. */
+const STABILISATION_MAX_DAMPING = 0.2;
 
 /**
  * Identifies the modes of one ambient record.
@@ -119,6 +127,7 @@ export function identifyModes(record: ModalRecord, options: IdentifyOptions = {}
     fddOut = { frequencyHz: fdd.frequencyHz, s1: fdd.singularValues[0], s2: fdd.singularValues[1] ?? null, s3: fdd.singularValues[2] ?? null };
   }
 
+  let stabilisation: StabilisationPoint[] | undefined;
   if (o.methods.includes("ssi")) {
     t = performance.now();
     if (data.length < 2) warnings.push("SSI-COV needs at least 2 channels: skipped");
@@ -129,12 +138,23 @@ export function identifyModes(record: ModalRecord, options: IdentifyOptions = {}
       const ssi = identifyModesSsiCov({ sampleRateHz: fs / q, channels, data: ssiData }, ssiOptions);
       warnings.push(...ssi.warnings.map((w) => `SSI-COV: ${w}`));
       warnings.push(...mergeSsi(modes, ssi.modes, length / fs, o.methods.includes("fdd")));
+      stabilisation = compactStabilisation(ssi.stabilisation, fs / q / 2);
     }
     timings.ssi = performance.now() - t;
   }
   modes.sort((a, b) => a.frequencyHz - b.frequencyHz);
   timings.total = performance.now() - t0;
-  return { channels, modes, singularValues: fddOut, spectral, quality, warnings, timingsMs: timings };
+  const out: IdentifyResult = { channels, modes, singularValues: fddOut, spectral, quality, warnings, timingsMs: timings };
+  if (stabilisation) out.stabilisation = stabilisation;
+  return out;
+}
+
+/** The diagram's physical poles (0 < ζ ≤ 0.2, 0 < f < Nyquist), rounded for storage and display. */
+function compactStabilisation(points: readonly StabilisationPoint[], nyquistHz: number): StabilisationPoint[] {
+  return points
+    .filter((p) => Number.isFinite(p.frequencyHz) && Number.isFinite(p.dampingRatio)
+      && p.frequencyHz > 0 && p.frequencyHz < nyquistHz && p.dampingRatio > 0 && p.dampingRatio <= STABILISATION_MAX_DAMPING)
+    .map((p) => ({ order: p.order, frequencyHz: Number(p.frequencyHz.toPrecision(6)), dampingRatio: Number(p.dampingRatio.toPrecision(4)), stable: p.stable }));
 }
 
 function fddMode(fdd: ReturnType<typeof decomposeCsdMatrix>, p: FddPeak, durationS: number, o: ReturnType<typeof validateIdentifyInput>): IdentifiedMode {

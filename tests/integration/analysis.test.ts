@@ -12,7 +12,10 @@ import { updateRecordStatus } from "@/lib/db/repos/record.repo";
 import type { TrackedMode } from "@/lib/domain/records";
 import { createRedisConnection } from "@/lib/jobs/connection";
 import { ANALYSIS_QUEUE, analysisJobId, closeAnalysisQueue, getAnalysisQueue, hasLiveAnalysisJob } from "@/lib/jobs/analysis";
+import { insertAnalysisSettingsVersion } from "@/lib/db/repos/analysis-settings.repo";
 import { analyseRecord } from "@/lib/services/analysis/analysis.service";
+import { getRecordDetail } from "@/lib/services/analysis/records.service";
+import { DEFAULT_ANALYSIS_SETTINGS } from "@/lib/services/analysis/settings";
 import { sweepPendingRecords } from "@/lib/services/analysis/sweeper";
 import { closeRateLimiter } from "@/lib/services/ingest/rate-limit";
 import { shearFrameModes, simulateAmbientRecord } from "@/lib/simulate";
@@ -115,6 +118,41 @@ describe("analysis of an uploaded shear-frame record", () => {
     const assignments = await db()("mode_assignments").where({ result_id: out.resultId }).select("identified_mode_id");
     expect(assignments).toHaveLength(tracked.length);
     expect(assignments.every((x: { identified_mode_id: string | null }) => x.identified_mode_id === null)).toBe(true);
+  });
+});
+
+describe("stabilisation diagram data", () => {
+  it("stores SSI-COV's poles as [order, frequency, damping, label] tuples and the record detail returns them", async () => {
+    const s = await makeGatewayAsset();
+    await insertAnalysisSettingsVersion(db(), s.asset.id, { ...DEFAULT_ANALYSIS_SETTINGS, methods: ["fdd", "ssi"] }, null);
+    const r = await send(recordsRoute.POST, uploadRequest({ key: s.key, meta: metaOf(), data: f32Of(frameRecord(21)), type: "application/octet-stream", filename: "r.f32" }));
+    expect(r.status).toBe(202);
+    const out = await analyseRecord(r.body.record!.id);
+    expect(out.status).toBe("analysed");
+    const row = await db()("analysis_results").where({ id: out.resultId }).first("extras");
+    const stab = row.extras.stabilisation as unknown[];
+    expect(Array.isArray(stab)).toBe(true);
+    expect(stab.length).toBeGreaterThan(0);
+    for (const p of stab) {
+      expect(p).toEqual([expect.any(Number), expect.any(Number), expect.any(Number), expect.stringMatching(/^(new|f|fd|fv|fdv)$/)]);
+    }
+    const tuples = stab as [number, number, number, string][];
+    // Every closed-form storey mode [Chopra] appears as a column of poles stable in frequency
+    // and shape (labels fv/fdv) within 1 % (the labelling tolerance between orders).
+    for (const m of FRAME) {
+      const column = tuples.filter(([, f, , l]) => Math.abs(f / m.frequencyHz - 1) < 0.01 && (l === "fv" || l === "fdv"));
+      expect(column.length).toBeGreaterThanOrEqual(5);
+    }
+    // The Record page reads the same tuples through getRecordDetail (records.service).
+    const detail = await getRecordDetail(s.team.owner.actor, s.asset.id, out.recordId);
+    expect(detail.analysis!.stabilisation).toEqual(stab);
+  });
+
+  it("stores no stabilisation data when SSI-COV did not run", async () => {
+    const id = await uploadFrame(23);
+    const out = await analyseRecord(id);
+    const row = await db()("analysis_results").where({ id: out.resultId }).first("extras");
+    expect(row.extras?.stabilisation ?? null).toBeNull();
   });
 });
 

@@ -10,7 +10,7 @@ import { ensureAnalysisSettings, findAnalysisSettingsVersion } from "@/lib/db/re
 import { findRecordById, updateRecordProgress, updateRecordStatus } from "@/lib/db/repos/record.repo";
 import { listChannelsOfAsset } from "@/lib/db/repos/sensor-channel.repo";
 import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
-import type { RecordStatus, TrackedMode } from "@/lib/domain/records";
+import type { RecordStatus, StabilisationPointTuple, TrackedMode } from "@/lib/domain/records";
 import { isAppError } from "@/lib/http/errors";
 import { assignModes } from "@/lib/modal/assign-modes";
 import { identifyModes, type IdentifyResult } from "@/lib/modal/identify";
@@ -89,6 +89,9 @@ export async function analyseRecord(
   const identified = identifyModes({ sampleRateHz: fs, channels, data }, identifyOptionsFor(settings, tracked, data[0].length));
   const frf = force && forceIdx >= 0
     ? frfExtras(fs, record.channels[forceIdx], force, channels, data, identified.spectral.nperseg || 2048) : null;
+  // SSI-COV's stabilisation diagram as [order, frequency Hz, damping ratio, label] tuples.
+  const stabilisation: StabilisationPointTuple[] | null = identified.stabilisation
+    ? identified.stabilisation.map((p) => [p.order, p.frequencyHz, p.dampingRatio, p.stable]) : null;
   await progress(0.8);
 
   const verdict = identified.quality.verdict;
@@ -105,7 +108,7 @@ export async function analyseRecord(
         s3: identified.singularValues.s3 ? Array.from(identified.singularValues.s3) : null,
       },
       warnings: identified.warnings, timingsMs: identified.timingsMs, engineVersion: ENGINE_VERSION,
-      extras: frf ? { stabilisation: null, frf } : null,
+      extras: frf || stabilisation ? { stabilisation, frf } : null,
     }, modes, assignments);
     await updateRecordStatus(trx, record.id, {
       status, progress: 1, analysedSettingsVersion: settingsRow.version,

@@ -161,3 +161,42 @@ describe("identifyModes validation", () => {
     expect(r.warnings.join(" ")).toMatch(/rejected/);
   });
 });
+
+describe("identifyModes stabilisation diagram data", () => {
+  const sim = simulateAmbientRecord({ modes: frame, sampleRateHz: FS, durationS: 600, seed: 7 });
+
+  it("is absent when SSI-COV did not run", () => {
+    const r = identifyModes({ sampleRateHz: FS, channels: CH, data: sim.data }, { nperseg: 1024 });
+    expect(r.stabilisation).toBeUndefined();
+  });
+
+  it("keeps SSI-COV's physical poles by order, with the closed-form modes stable in all criteria at high orders", () => {
+    const maxOrder = 20;
+    const r = identifyModes({ sampleRateHz: FS, channels: CH, data: sim.data }, { nperseg: 1024, methods: ["fdd", "ssi"], ssi: { maxOrder } });
+    const st = r.stabilisation!;
+    expect(st.length).toBeGreaterThan(0);
+    // Orders are the even model orders 2…maxOrder; each order n has at most n/2 conjugate
+    // pole pairs (state dimension n [pub: Peeters & De Roeck 1999, SSI-COV]).
+    const perOrder = new Map<number, number>();
+    for (const p of st) {
+      expect(p.order % 2).toBe(0);
+      expect(p.order).toBeGreaterThanOrEqual(2);
+      expect(p.order).toBeLessThanOrEqual(maxOrder);
+      expect(["new", "f", "fd", "fv", "fdv"]).toContain(p.stable);
+      // Physical poles only: 0 < ζ ≤ 0.2 [practice], 0 < f < Nyquist.
+      expect(p.dampingRatio).toBeGreaterThan(0);
+      expect(p.dampingRatio).toBeLessThanOrEqual(0.2);
+      expect(p.frequencyHz).toBeGreaterThan(0);
+      expect(p.frequencyHz).toBeLessThan(FS / 2);
+      perOrder.set(p.order, (perOrder.get(p.order) ?? 0) + 1);
+    }
+    for (const [order, n] of perOrder) expect(n).toBeLessThanOrEqual(order / 2);
+    // Every closed-form mode [Chopra] is a column of poles: at the top half of the orders a
+    // pole within 1 % of it is stable in frequency (label f*, tolerance 1 % between orders).
+    for (const m of frame) {
+      const high = st.filter((p) => p.order > maxOrder / 2 && Math.abs(p.frequencyHz / m.frequencyHz - 1) < 0.01);
+      expect(high.length).toBeGreaterThanOrEqual(maxOrder / 4);
+      expect(high.filter((p) => p.stable !== "new").length).toBeGreaterThanOrEqual(maxOrder / 4 - 1);
+    }
+  });
+});
