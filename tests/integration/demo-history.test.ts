@@ -22,7 +22,7 @@ async function counts() {
   const gatewayIds = DEMO_ASSETS.map((a) => a.gateway.id);
   const recordIds = k("records").select("id").whereIn("gateway_id", gatewayIds).andWhere("gateway_record_id", "like", `${DEMO_HISTORY_PREFIX}%`);
   const resultIds = k("analysis_results").select("id").whereIn("record_id", recordIds.clone());
-  const n = async (q: Promise<{ n: string | number }[]>) => Number((await q)[0].n);
+  const n = async (q: PromiseLike<{ n?: string | number }[]>) => Number((await q)[0].n);
   return {
     records: await n(k("records").count({ n: "*" }).whereIn("id", recordIds.clone())),
     results: await n(k("analysis_results").count({ n: "*" }).whereIn("id", resultIds.clone())),
