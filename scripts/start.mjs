@@ -1,8 +1,10 @@
 #!/usr/bin/env node
 // `npm start`: set up a fresh clone and run the whole product on this machine.
 // npm packages → redis-server → PostgreSQL cluster → Redis → mail catcher → migrations →
-// demo seed → build → app + worker. Ctrl-C / SIGTERM stops app, worker, catcher, Redis and
+// demo seed → build → app + worker → a few fresh demo records per asset through the upload
+// API (background, scripts/demo-fresh-records.ts). Ctrl-C / SIGTERM stops app, worker, catcher, Redis and
 // PostgreSQL, in that order. Only Node built-ins here: node_modules may not exist yet.
+import { spawn } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { childEnv, devConfig } from "./stack/config.mjs";
@@ -103,6 +105,40 @@ async function main() {
     "Press Ctrl-C to stop everything.",
     "",
   ].join("\n"));
+  startFreshDemoRecords(cfg.appUrl, env);
+}
+
+/**
+ * In the background: a few short simulated records per demo asset through the real upload
+ * API with the demo gateway keys, so the queue visibly works; one line per asset when the
+ * worker has answered. Stopped with everything else on Ctrl-C.
+ */
+function startFreshDemoRecords(appUrl, env) {
+  const child = spawn(process.execPath, [...TSX, path.join(root, "scripts/demo-fresh-records.ts"), "--url", appUrl, "--count", "2"], {
+    env, cwd: root, stdio: ["ignore", "pipe", "pipe"],
+  });
+  let rest = "";
+  const relay = (chunk) => {
+    const lines = (rest + chunk.toString("utf8")).split("\n");
+    rest = lines.pop() ?? "";
+    for (const line of lines) if (line.trim()) log("demo", line.replace(/^\[demo\] /, ""));
+  };
+  child.stdout.on("data", relay);
+  child.stderr.on("data", relay);
+  let running = true;
+  child.on("exit", (code) => {
+    running = false;
+    if (code) log("demo", `fresh demo records ended with exit code ${code}`);
+  });
+  log("demo", "sending 2 fresh simulated records per demo asset through the upload API…");
+  stoppers.push(["fresh demo records", async () => {
+    if (!running) return;
+    child.kill("SIGTERM");
+    await new Promise((resolve) => {
+      const t = setTimeout(() => { child.kill("SIGKILL"); resolve(); }, 3000);
+      child.once("exit", () => { clearTimeout(t); resolve(); });
+    });
+  }]);
 }
 
 main().catch((err) => {
