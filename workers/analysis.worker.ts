@@ -31,6 +31,10 @@ export function createAnalysisWorker(connection: Redis, options: { concurrency?:
   return new Worker(ANALYSIS_QUEUE, processAnalysisJob, {
     connection,
     concurrency: options.concurrency ?? env().ANALYSIS_CONCURRENCY,
+    // A job whose worker was killed keeps its lock until it expires; the stalled check of a
+    // live worker then moves it back to waiting (once: maxStalledCount 1, BullMQ's default).
+    lockDuration: env().ANALYSIS_STALL_TIMEOUT_S * 1000,
+    stalledInterval: env().ANALYSIS_STALL_TIMEOUT_S * 1000,
   });
 }
 

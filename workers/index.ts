@@ -19,8 +19,12 @@ const stopSweeper = startRecordSweeper();
 for (const w of workers) {
   w.on("failed", (job, err) => console.error(`${w.name} job ${job?.id ?? "?"} failed (attempt ${job?.attemptsMade ?? "?"}): ${err.message}`));
   w.on("error", (err) => console.error(`${w.name} worker error: ${err.message}`));
+  w.on("completed", (job) => console.log(`${w.name} job ${job.id ?? "?"} completed`));
 }
-console.log(`worker ready: ${workers.map((w) => w.name).join(", ")}`);
+void Promise.all(workers.map((w) => w.waitUntilReady())).then(
+  () => console.log(`worker ready: ${workers.map((w) => w.name).join(", ")} (pid ${process.pid})`),
+  (err: unknown) => console.error(`worker start failed: ${err instanceof Error ? err.message : String(err)}`),
+);
 
 let closing = false;
 async function shutdown(signal: string): Promise<void> {

@@ -65,6 +65,11 @@ const Env = z.object({
   ANALYSIS_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
   /** Seconds between sweeps that re-enqueue records left pending without a live job. */
   ANALYSIS_SWEEP_INTERVAL_S: z.coerce.number().int().min(5).default(60),
+  /**
+   * Seconds after which a running analysis job whose worker died (no lock renewal) is handed
+   * to another worker: BullMQ's lock duration and stalled-job check interval.
+   */
+  ANALYSIS_STALL_TIMEOUT_S: z.coerce.number().int().min(2).max(600).default(30),
 });
 
 export type Env = z.infer<typeof Env>;
