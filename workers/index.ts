@@ -7,13 +7,15 @@ import type { Worker } from "bullmq";
 import { createRedisConnection } from "@/lib/jobs/connection";
 import { closeQueues } from "@/lib/jobs/queues";
 import { closeAnalysisQueue } from "@/lib/jobs/analysis";
+import { closeDriftQueue } from "@/lib/jobs/drift";
 import { closeMailTransport } from "@/lib/email/transport";
 import { closeDb } from "@/lib/db/knex";
 import { createMailWorker } from "./mail.worker";
 import { createAnalysisWorker, startRecordSweeper } from "./analysis.worker";
+import { createDriftWorker } from "./drift.worker";
 
 const connection = createRedisConnection();
-const workers: Worker[] = [createMailWorker(connection), createAnalysisWorker(connection)];
+const workers: Worker[] = [createMailWorker(connection), createAnalysisWorker(connection), createDriftWorker(connection)];
 const stopSweeper = startRecordSweeper();
 
 for (const w of workers) {
@@ -36,7 +38,7 @@ async function shutdown(signal: string): Promise<void> {
   try {
     stopSweeper();
     await Promise.all(workers.map((w) => w.close()));
-    await Promise.all([closeQueues(), closeAnalysisQueue()]);
+    await Promise.all([closeQueues(), closeAnalysisQueue(), closeDriftQueue()]);
     await connection.quit().catch(() => connection.disconnect());
     closeMailTransport();
     await closeDb();

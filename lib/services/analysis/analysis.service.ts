@@ -12,6 +12,7 @@ import { listChannelsOfAsset } from "@/lib/db/repos/sensor-channel.repo";
 import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
 import type { RecordStatus, StabilisationPointTuple, TrackedMode } from "@/lib/domain/records";
 import { isAppError } from "@/lib/http/errors";
+import { enqueueDrift } from "@/lib/jobs/drift";
 import { assignModes } from "@/lib/modal/assign-modes";
 import { identifyModes, type IdentifyResult } from "@/lib/modal/identify";
 import { decimate } from "@/lib/signal/decimate";
@@ -117,6 +118,7 @@ export async function analyseRecord(
     return out;
   });
   await opts.onProgress?.(1);
+  if (status === "analysed") await enqueueDrift(record.assetId);
   return {
     recordId: record.id, status, settingsVersion: settingsRow.version, resultId: stored.result.id, modeCount: stored.modes.length,
     identifiedTracked: stored.assignments.filter((a) => a.identifiedModeId !== null).length,
