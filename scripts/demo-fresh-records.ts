@@ -51,7 +51,7 @@ async function main(): Promise<void> {
     const key = demoGatewayKey(asset.gateway.slug);
     try {
       const { answers } = await runGatewaySimulation({
-        url, key, count, intervalS: 0, durationS: 180, rateHz: 50, seed: (Date.now() % 1e6) + 100 * i, defects: DEFECTS[asset.gateway.slug],
+        url, key, count, intervalS: 0, durationS: 300, rateHz: 50, seed: (Date.now() % 1e6) + 100 * i, defects: DEFECTS[asset.gateway.slug],
       });
       const parts = await Promise.all(answers.map(async (a) => {
         const id = recordIdOf(a);

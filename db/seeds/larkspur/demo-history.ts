@@ -27,7 +27,9 @@ const SLOT_MS = 6 * 3_600_000;
 const DAY_MS = 86_400_000;
 const SAMPLE_RATE_HZ = 100;
 const DURATION_S = 600;
-const NPERSEG = 4096;
+const NPERSEG = 16384;
+/** Welch averages at 50 % overlap over one record. */
+const AVERAGES = Math.floor((SAMPLE_RATE_HZ * DURATION_S - NPERSEG) / (NPERSEG / 2)) + 1;
 const CHUNK = 500;
 
 export interface DemoHistoryOptions {
@@ -63,10 +65,13 @@ function macReal(a: number[], b: number[]): number {
 interface Rows { records: object[]; results: object[]; modes: object[]; assignments: object[] }
 
 function displaySpectrum(freqs: { f: number; zeta: number; amp: number }[], fMax: number, rng: Rng) {
-  const n = 128;
+  // A coarse uniform grid plus lines around each peak (±4 half-power half-widths) so peaks stay sharp.
+  const grid = Array.from({ length: 96 }, (_, i) => (fMax * (i + 1)) / 96);
+  for (const m of freqs) for (let k = -4; k <= 4; k++) grid.push(m.f * (1 + k * m.zeta));
+  grid.sort((a, b) => a - b);
   const frequencyHz: number[] = [], s1: number[] = [];
-  for (let i = 1; i <= n; i++) {
-    const f = (fMax * i) / n;
+  for (const f of grid) {
+    if (f <= 0 || f > fMax) continue;
     let s = 2e-9 * (1 + 0.3 * Math.abs(rng.normal()));
     for (const m of freqs) {
       const r = f / m.f;
@@ -111,7 +116,7 @@ function historyRows(asset: DemoAsset, model: DemoAssetModel, tracked: Map<strin
         f, zeta, amp: 0.5 + rng.next(), trackedId: tracked.get(m.label) as string, mac, dev: (f - nominal) / nominal,
         row: {
           frequency_hz: Number(f.toFixed(4)), damping_ratio: Number(zeta.toFixed(5)), damping_method: "efdd",
-          damping_reliable: f * DURATION_S * zeta > 4, mpc: Number((0.93 + 0.065 * rng.next()).toFixed(4)),
+          damping_reliable: (2 * zeta * f * NPERSEG) / SAMPLE_RATE_HZ >= 3, mpc: Number((0.93 + 0.065 * rng.next()).toFixed(4)),
           shape: JSON.stringify(Object.fromEntries(used.map((c, i) => [c, shape[i]]))),
           shape_complex: JSON.stringify({ re: Object.fromEntries(used.map((c, i) => [c, shape[i]])), im: Object.fromEntries(used.map((c, i) => [c, im[i]])) }),
           estimates: JSON.stringify({
@@ -141,7 +146,7 @@ function historyRows(asset: DemoAsset, model: DemoAssetModel, tracked: Map<strin
     const verdict = flat ? { kind: "accept_without", channels: [flat] } : { kind: "accept" };
     out.results.push({
       id: resultId, record_id: recordId, settings_version: 1, verdict: verdict.kind, quality: JSON.stringify({ channels, verdict }),
-      channels_used: used, spectral: JSON.stringify({ nperseg: NPERSEG, noverlap: NPERSEG / 2, lineSpacingHz: SAMPLE_RATE_HZ / NPERSEG, averages: 28 }),
+      channels_used: used, spectral: JSON.stringify({ nperseg: NPERSEG, noverlap: NPERSEG / 2, lineSpacingHz: SAMPLE_RATE_HZ / NPERSEG, averages: AVERAGES }),
       singular_values: JSON.stringify(displaySpectrum(identified, fMax, rng)), warnings: JSON.stringify([DEMO_HISTORY_WARNING]),
       timings_ms: JSON.stringify({}), engine_version: "modewarden-demo-history-1", extras: null, analysed_at: doneAt,
     });
