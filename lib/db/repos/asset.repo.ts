@@ -22,12 +22,12 @@ export async function listAssetsOfOrganisation(db: Db, organisationId: string): 
           "(select count(*)::int from sensor_channels c where c.asset_id = a.id and c.active) as channel_count",
         ),
       )
+      .select(db.raw("(select count(*)::int from alerts al where al.asset_id = a.id and al.state <> 'closed') as open_alert_count"))
       .where("a.organisation_id", organisationId)
       .orderBy([{ column: "a.name" }, { column: "a.id" }]),
   );
-  // Alerts arrive with a later issue; until then no asset has an open alert.
-  return (rows as (AssetRow & { channel_count: number })[]).map((r) => ({
-    ...toAsset(r), channelCount: r.channel_count, openAlertCount: 0,
+  return (rows as (AssetRow & { channel_count: number; open_alert_count: number })[]).map((r) => ({
+    ...toAsset(r), channelCount: r.channel_count, openAlertCount: r.open_alert_count,
   }));
 }
 
