@@ -4,6 +4,7 @@
  * leaves an alert event and an audit entry; other organisations get 404; routes answer
  * 401/403/404/409/422.
  */
+import type { Worker } from "bullmq";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as listRoute from "@/app/api/v1/alerts/route";
 import * as alertRoute from "@/app/api/v1/alerts/[alertId]/route";
@@ -16,6 +17,12 @@ import { closeDb, db } from "@/lib/db/knex";
 import { insertAlertIfNew } from "@/lib/db/repos/alert.repo";
 import type { Alert } from "@/lib/domain/drift";
 import { closeDriftQueue } from "@/lib/jobs/drift";
+import { env } from "@/lib/config/env";
+import { closeMailTransport } from "@/lib/email/transport";
+import { createRedisConnection } from "@/lib/jobs/connection";
+import { closeQueues } from "@/lib/jobs/queues";
+import { linksIn, waitForMail } from "@/tests/helpers/mail";
+import { createMailWorker } from "@/workers/mail.worker";
 import {
   acknowledgeAlert, assignAlert, closeAlert, commentOnAlert, getAlert, listAlerts, scheduleInspection,
 } from "@/lib/services/alerts/alert.service";
@@ -25,12 +32,19 @@ import { call, makeTeam, tokenFor, validAsset } from "./support/factories";
 type Team = Awaited<ReturnType<typeof makeTeam>>;
 let team: Team;
 let foreign: Team;
+let worker: Worker;
+let connection: ReturnType<typeof createRedisConnection>;
 
 beforeAll(async () => {
   [team, foreign] = await Promise.all([makeTeam(), makeTeam()]);
+  connection = createRedisConnection();
+  worker = createMailWorker(connection);
 });
 afterAll(async () => {
-  await closeDriftQueue();
+  await worker.close();
+  await connection.quit();
+  await Promise.all([closeQueues(), closeDriftQueue()]);
+  closeMailTransport();
   await closeDb();
 });
 
@@ -68,6 +82,16 @@ describe("alert lifecycle", () => {
     expect(closed.closedAt).toBeInstanceOf(Date);
     await expect(closeAlert(team.engineer.actor, a.id, { outcome: "repaired", findings: "again" })).rejects.toMatchObject({ code: "conflict" });
     await expect(scheduleInspection(team.inspector.actor, a.id, { at })).rejects.toMatchObject({ code: "conflict" });
+
+    // E-mails (issue 5 §6): the assignee on assignment, inspectors and engineers on closure, each with the link and the caution.
+    const link = `${env().APP_URL.replace(/\/$/, "")}/alerts/${a.id}`;
+    const assignedMail = await waitForMail((m) => m.to.includes(team.inspector.email.toLowerCase()) && m.subject.startsWith("Alert assigned"));
+    expect(linksIn(assignedMail)).toContain(link);
+    expect(assignedMail.text).toMatch(/not an engineering assessment/);
+    const closedMail = await waitForMail((m) => m.to.includes(team.engineer.email.toLowerCase()) && m.subject.startsWith("Alert closed"));
+    expect(closedMail.text).toMatch(/defect found/);
+    expect(closedMail.text).toMatch(/Displaced bearing/);
+    expect(closedMail.html).toMatch(/not an engineering assessment/);
 
     const { events } = await getAlert(team.owner.actor, a.id);
     expect(events.map((e) => e.kind)).toEqual(["acknowledged", "inspection_scheduled", "assigned", "comment", "closed"]);

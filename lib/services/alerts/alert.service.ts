@@ -8,9 +8,13 @@
  */
 import { db, type Db } from "@/lib/db/knex";
 import {
-  findAlertById, insertAlertEvent, listAlertEvents, listAlertsOfOrganisation, updateAlertById, type AlertPatch, type AlertWithAsset,
+  findAlertById, insertAlertEvent, listAlertEvents, listAlertsOfOrganisation, listMemberAddresses, updateAlertById, type AlertPatch, type AlertWithAsset,
 } from "@/lib/db/repos/alert.repo";
 import { findMembershipRole } from "@/lib/db/repos/membership.repo";
+import { findUserById } from "@/lib/db/repos/user.repo";
+import { env } from "@/lib/config/env";
+import { alertUpdateEmail, type AlertUpdateEmailData } from "@/lib/email/templates/alert-update";
+import { enqueueMail } from "@/lib/jobs/queues";
 import type { AlertEvent, AlertEventKind, AlertState } from "@/lib/domain/drift";
 import type { Actor } from "@/lib/domain/types";
 import { AppError } from "@/lib/http/errors";
@@ -60,10 +64,15 @@ export async function assignAlert(actor: Actor, alertId: string, input: AssignAl
   if (role !== "inspector") {
     throw new AppError("unprocessable", "Choose an inspector of your organisation.", { fieldErrors: { userId: ["Choose an inspector of your organisation."] } });
   }
-  return step(actor, alertId, "assigned", (a) => {
+  const assigned = await step(actor, alertId, "assigned", (a) => {
     if (a.state === "closed") throw conflict(a.state, "assigned");
     return { patch: { assigneeUserId: input.userId }, details: { userId: input.userId, previousUserId: a.assigneeUserId } };
   });
+  const assignee = await findUserById(db(), input.userId);
+  if (assignee && !assignee.disabled && assignee.id !== actor.userId) {
+    await notify(actor, assigned, { kind: "assigned" }, [{ userId: assignee.id, email: assignee.email }]);
+  }
+  return assigned;
 }
 
 export async function commentOnAlert(actor: Actor, alertId: string, input: CommentAlertInput): Promise<AlertEvent> {
@@ -84,7 +93,23 @@ export async function closeAlert(actor: Actor, alertId: string, input: CloseAler
     return { patch: { state: "closed", outcome: input.outcome, findings: input.findings, closedAt: new Date() }, details: { outcome: input.outcome, findings: input.findings } };
   });
   await enqueueDrift(closed.assetId);
+  const recipients = await listMemberAddresses(db(), actor.organisationId, ["inspector", "engineer"]);
+  await notify(actor, closed, { kind: "closed", outcome: input.outcome, findings: input.findings }, recipients.filter((r) => r.userId !== actor.userId));
   return closed;
+}
+
+/** Queue one e-mail per recipient (job ids keyed by alert, step and user, so a retry sends nothing twice). */
+async function notify(
+  actor: Actor, alert: AlertView, what: Pick<AlertUpdateEmailData, "kind" | "outcome" | "findings">, to: { userId: string; email: string }[],
+): Promise<void> {
+  if (to.length === 0) return;
+  const me = await findUserById(db(), actor.userId);
+  const message = alertUpdateEmail({
+    ...what, assetName: alert.assetName, raisedAt: alert.raisedAt, actorName: me?.displayName ?? "A colleague",
+    link: `${env().APP_URL.replace(/\/$/, "")}/alerts/${alert.id}`,
+  });
+  const stamp = alert.updatedAt.getTime();
+  for (const r of to) await enqueueMail({ to: r.email, ...message }, { jobId: `alert-${what.kind}-${alert.id}-${stamp}-${r.userId}` });
 }
 
 const conflict = (state: AlertState, verb: string) =>
