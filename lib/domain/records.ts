@@ -35,6 +35,7 @@ export interface VibrationRecord {
   environment: RecordEnvironment;
   /** Hex SHA-256 of the data part after gzip decompression. */
   contentHash: string;
+  /** Storage key of the raw samples; NO_RAW_SAMPLES_BLOB_KEY when none are kept. */
   blobKey: string;
   dataFormat: DataFormat;
   /** Size of the stored (decompressed) data, bytes. */
@@ -169,4 +170,15 @@ export interface RecordJson extends Omit<VibrationRecord, "startedAt" | "created
 export function toRecordJson(r: VibrationRecord): RecordJson {
   const { blobKey: _blobKey, ...rest } = r;
   return { ...rest, startedAt: r.startedAt.toISOString(), createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString() };
+}
+
+/**
+ * Blob key of a record that carries results but no raw samples (the seeded demo history):
+ * such a record cannot be analysed again.
+ */
+export const NO_RAW_SAMPLES_BLOB_KEY = "demo-history/none";
+
+/** Whether the record's raw samples are stored, so that it can be reprocessed. */
+export function hasRawSamples(record: { blobKey: string }): boolean {
+  return record.blobKey !== NO_RAW_SAMPLES_BLOB_KEY;
 }

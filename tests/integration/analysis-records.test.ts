@@ -16,6 +16,7 @@ import * as modesRoute from "@/app/api/v1/assets/[assetId]/tracked-modes/route";
 import * as modeRoute from "@/app/api/v1/assets/[assetId]/tracked-modes/[trackedModeId]/route";
 import { closeDb, db } from "@/lib/db/knex";
 import { updateRecordStatus } from "@/lib/db/repos/record.repo";
+import { NO_RAW_SAMPLES_BLOB_KEY } from "@/lib/domain/records";
 import { analysisJobId, closeAnalysisQueue, getAnalysisQueue } from "@/lib/jobs/analysis";
 import { analyseRecord } from "@/lib/services/analysis/analysis.service";
 import { listRecords, type RecordDetail } from "@/lib/services/analysis/records.service";
@@ -200,6 +201,15 @@ describe("record reads, tracking a record's mode and reprocessing", () => {
     expect(res.status).toBe(202);
     const row = await db()("records").where({ id: recordId }).first("status", "failure_reason");
     expect(row).toEqual({ status: "queued", failure_reason: null });
+  });
+
+  it("refuses to reprocess a record whose raw samples are not kept (409), leaving its status alone", async () => {
+    const other = await uploadFrame(12, "2026-03-02T11:00:00Z");
+    await analyseRecord(other);
+    await db()("records").where({ id: other }).update({ blob_key: NO_RAW_SAMPLES_BLOB_KEY });
+    const res = await call(reprocessRoute.POST, { method: "POST", token: tok.engineer, params: p({ recordId: other }) });
+    expect(res.status).toBe(409);
+    expect(await db()("records").where({ id: other }).first("status")).toEqual({ status: "analysed" });
   });
 });
 

@@ -16,6 +16,7 @@
 import { createHash } from "node:crypto";
 import type { Knex } from "knex";
 import { createRng, frequencyAtTemperature, type Rng } from "../../../lib/simulate";
+import { NO_RAW_SAMPLES_BLOB_KEY } from "../../../lib/domain/records";
 import { DEFAULT_ANALYSIS_SETTINGS } from "../../../lib/services/analysis/settings";
 import { DEMO_ORGANISATION } from "../demo-users";
 import { DEMO_ASSETS, type DemoAsset } from "./data";
@@ -134,7 +135,7 @@ function historyRows(asset: DemoAsset, model: DemoAssetModel, tracked: Map<strin
       id: recordId, organisation_id: DEMO_ORGANISATION.id, asset_id: asset.id, gateway_id: asset.gateway.id, gateway_record_id: gatewayRecordId,
       started_at: startedAt, sample_rate_hz: SAMPLE_RATE_HZ, channels: codes, units: "m/s2", temperature_c: temperatureC,
       environment: JSON.stringify({}), content_hash: createHash("sha256").update(`demo-history:${recordId}`).digest("hex"),
-      blob_key: "demo-history/none", data_format: "f32le", byte_size: 4 * codes.length * SAMPLE_RATE_HZ * DURATION_S,
+      blob_key: NO_RAW_SAMPLES_BLOB_KEY, data_format: "f32le", byte_size: 4 * codes.length * SAMPLE_RATE_HZ * DURATION_S,
       sample_count: SAMPLE_RATE_HZ * DURATION_S, duration_s: DURATION_S, status: "analysed", progress: 1, analysed_settings_version: 1,
       created_at: new Date(at + DURATION_S * 1000 + 400), updated_at: doneAt,
     });

@@ -58,9 +58,9 @@ export async function listRecordSummariesOfAsset(db: Db, assetId: string, f: Rec
 }
 
 /** Ids of the asset's records that started in [from, to), oldest first, at most `limit`. */
-export async function listRecordIdsInRange(db: Db, assetId: string, from: Date, to: Date, limit: number): Promise<{ id: string; status: RecordStatus }[]> {
+export async function listRecordIdsInRange(db: Db, assetId: string, from: Date, to: Date, limit: number): Promise<{ id: string; status: RecordStatus; blobKey: string }[]> {
   return withDbErrors(() =>
-    db("records").select("id", "status").where({ asset_id: assetId }).where("started_at", ">=", from).where("started_at", "<", to)
+    db("records").select("id", "status", { blobKey: "blob_key" }).where({ asset_id: assetId }).where("started_at", ">=", from).where("started_at", "<", to)
       .orderBy([{ column: "started_at" }, { column: "id" }]).limit(limit),
   );
 }

@@ -11,7 +11,7 @@ import { ensureAnalysisSettings } from "@/lib/db/repos/analysis-settings.repo";
 import { listRecordIdsInRange, markRecordsQueued } from "@/lib/db/repos/record-list.repo";
 import { findRecordById, updateRecordStatus } from "@/lib/db/repos/record.repo";
 import type { Actor, Asset } from "@/lib/domain/types";
-import type { VibrationRecord } from "@/lib/domain/records";
+import { hasRawSamples, type VibrationRecord } from "@/lib/domain/records";
 import { AppError } from "@/lib/http/errors";
 import { enqueueAnalysis } from "@/lib/jobs/analysis";
 import { recordAudit } from "@/lib/services/audit/audit.service";
@@ -33,11 +33,19 @@ export async function loadRecordOfAsset(actor: Actor, assetId: string, recordId:
   return { asset, record };
 }
 
+/** A record without raw samples (seeded demo history) keeps its results: 'conflict'. */
+function assertReprocessable(record: VibrationRecord): void {
+  if (!hasRawSamples(record)) {
+    throw new AppError("conflict", "This record keeps its results but not its raw samples (demo history), so it cannot be analysed again.");
+  }
+}
+
 /** Queue the record for analysis with the asset's current settings version. */
 export async function reprocessRecord(actor: Actor, assetId: string, recordId: string): Promise<ReprocessOutcome> {
   assertCan(actor, "record:reprocess");
   const { record, version } = await db().transaction(async (trx) => {
     const { asset, record } = await loadRecordOfAsset(actor, assetId, recordId, trx);
+    assertReprocessable(record);
     const settings = await ensureAnalysisSettings(trx, asset.id, DEFAULT_ANALYSIS_SETTINGS);
     await updateRecordStatus(trx, record.id, { status: "queued", progress: 0, failureReason: null });
     await recordAudit(trx, actor, {
@@ -53,7 +61,7 @@ export async function reprocessRecord(actor: Actor, assetId: string, recordId: s
 /**
  * Queue every record of the asset that started in [from, to) with the current settings
  * version. Records still waiting for their first analysis (received, queued) are left alone:
- * they will run with the latest version anyway.
+ * they will run with the latest version anyway; records without raw samples are skipped.
  * @throws AppError('unprocessable') when the range holds more than MAX_REPROCESS_RECORDS.
  */
 export async function reprocessRange(
@@ -69,7 +77,7 @@ export async function reprocessRange(
       });
     }
     const settings = await ensureAnalysisSettings(trx, asset.id, DEFAULT_ANALYSIS_SETTINGS);
-    const ids = rows.filter((r) => r.status !== "received" && r.status !== "queued").map((r) => r.id);
+    const ids = rows.filter((r) => r.status !== "received" && r.status !== "queued" && hasRawSamples(r)).map((r) => r.id);
     await markRecordsQueued(trx, ids);
     await recordAudit(trx, actor, {
       action: "record.reprocess_range", subjectType: "asset", subjectId: asset.id,
