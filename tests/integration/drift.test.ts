@@ -12,7 +12,9 @@ import { env } from "@/lib/config/env";
 import { closeDb, db } from "@/lib/db/knex";
 import { closeMailTransport } from "@/lib/email/transport";
 import { createRedisConnection } from "@/lib/jobs/connection";
-import { closeDriftQueue } from "@/lib/jobs/drift";
+import { closeDriftQueue, enqueueDrift } from "@/lib/jobs/drift";
+import { updateAssetById } from "@/lib/db/repos/asset.repo";
+import { createDriftWorker } from "@/workers/drift.worker";
 import { closeQueues } from "@/lib/jobs/queues";
 import { createAsset, getAsset } from "@/lib/services/assets/asset.service";
 import { fitAndActivateBaseline, listBaselines } from "@/lib/services/drift/baseline.service";
@@ -104,6 +106,27 @@ describe("recomputeDrift on an imported history", () => {
     }
     for (const who of [team.owner, team.admin]) {
       expect(mails.filter((m) => m.to.includes(who.email.toLowerCase()))).toHaveLength(0);
+    }
+  });
+});
+
+describe("drift queue and worker", () => {
+  it("replays an asset queued as drift-<assetId>: without a baseline the asset is commissioning", async () => {
+    const asset = await createAsset(team.engineer.actor, validAsset());
+    await updateAssetById(db(), asset.id, { condition: "steady" });
+    const workerConnection = connection.duplicate();
+    const driftWorker = createDriftWorker(workerConnection);
+    try {
+      const job = await enqueueDrift(asset.id);
+      expect(job.jobId).toMatch(new RegExp(`^drift-${asset.id}`));
+      const deadline = Date.now() + 20_000;
+      while ((await getAsset(team.owner.actor, asset.id)).condition !== "commissioning" && Date.now() < deadline) {
+        await new Promise((r) => setTimeout(r, 200));
+      }
+      expect((await getAsset(team.owner.actor, asset.id)).condition).toBe("commissioning");
+    } finally {
+      await driftWorker.close();
+      await workerConnection.quit();
     }
   });
 });
