@@ -10,6 +10,10 @@ import { pathToFileURL } from "node:url";
 import knexFactory from "knex";
 import { z } from "zod";
 import { knexConfig } from "../knexfile";
+import { closeDb } from "../lib/db/knex";
+import { closeAnalysisQueue } from "../lib/jobs/analysis";
+import { closeDriftQueue } from "../lib/jobs/drift";
+import { closeQueues } from "../lib/jobs/queues";
 
 const DemoUser = z.object({ email: z.string(), password: z.string(), role: z.string() }).loose();
 const DemoUsers = z.array(DemoUser).min(1);
@@ -46,6 +50,10 @@ async function main(): Promise<void> {
     console.log(files.length ? `seeded: ${files.map((f) => path.basename(f)).join(", ")}` : "seeds: none found");
   } finally {
     await knex.destroy();
+    // The demo seed goes through services (baseline fit, drift replay, alert e-mails), which
+    // open the shared Knex pool and queue connections: close them so the script exits.
+    await Promise.all([closeQueues(), closeAnalysisQueue(), closeDriftQueue()]);
+    await closeDb();
   }
 }
 

@@ -10,6 +10,7 @@ import { hashPassword } from "../../../lib/auth/passwords";
 import { GATEWAY_KEY_PREFIX, hashSecret } from "../../../lib/auth/tokens";
 import { DEMO_ORGANISATION, DEMO_SIGN_INS } from "../demo-users";
 import { DEMO_ASSETS, DEMO_USER_IDS } from "./data";
+import { seedDemoBaselines } from "./demo-baselines";
 import { seedDemoHistory } from "./demo-history";
 
 /**
@@ -84,4 +85,6 @@ export async function seedLarkspurDemo(knex: Knex): Promise<void> {
   });
   // About a year of analysed history per asset (skips what is already there).
   await seedDemoHistory(knex);
+  // Baselines on the first nine months, then the drift replay that sets each condition.
+  await seedDemoBaselines(knex);
 }
