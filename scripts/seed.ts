@@ -11,8 +11,6 @@ import knexFactory from "knex";
 import { z } from "zod";
 import { knexConfig } from "../knexfile";
 import { closeDb } from "../lib/db/knex";
-import { closeAnalysisQueue } from "../lib/jobs/analysis";
-import { closeDriftQueue } from "../lib/jobs/drift";
 import { closeQueues } from "../lib/jobs/queues";
 
 const DemoUser = z.object({ email: z.string(), password: z.string(), role: z.string() }).loose();
@@ -52,7 +50,7 @@ async function main(): Promise<void> {
     await knex.destroy();
     // The demo seed goes through services (baseline fit, drift replay, alert e-mails), which
     // open the shared Knex pool and queue connections: close them so the script exits.
-    await Promise.all([closeQueues(), closeAnalysisQueue(), closeDriftQueue()]);
+    await closeQueues();
     await closeDb();
   }
 }

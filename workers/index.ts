@@ -6,8 +6,6 @@
 import type { Worker } from "bullmq";
 import { createRedisConnection } from "@/lib/jobs/connection";
 import { closeQueues } from "@/lib/jobs/queues";
-import { closeAnalysisQueue } from "@/lib/jobs/analysis";
-import { closeDriftQueue } from "@/lib/jobs/drift";
 import { closeMailTransport } from "@/lib/email/transport";
 import { closeDb } from "@/lib/db/knex";
 import { createMailWorker } from "./mail.worker";
@@ -38,7 +36,7 @@ async function shutdown(signal: string): Promise<void> {
   try {
     stopSweeper();
     await Promise.all(workers.map((w) => w.close()));
-    await Promise.all([closeQueues(), closeAnalysisQueue(), closeDriftQueue()]);
+    await closeQueues();
     await connection.quit().catch(() => connection.disconnect());
     closeMailTransport();
     await closeDb();

@@ -6,12 +6,11 @@
  * keyed by (record, settings version), so a retry is harmless. Completed jobs are removed at once, which frees the id for a later reprocess
  * or sweep; failed ones are kept for inspection until replaced.
  */
-import { Queue, type Job, type JobsOptions } from "bullmq";
-import type { Redis } from "ioredis";
+import { type Queue, type Job, type JobsOptions } from "bullmq";
 import { z } from "zod";
-import { createRedisConnection } from "./connection";
+import { getQueue, QUEUE_NAMES } from "./queues";
 
-export const ANALYSIS_QUEUE = "analysis";
+export const ANALYSIS_QUEUE = QUEUE_NAMES.analysis;
 
 export const AnalysisJob = z.strictObject({
   recordId: z.uuid(),
@@ -34,22 +33,9 @@ export const analysisJobId = (recordId: string, settingsVersion?: number): strin
 
 const LIVE_STATES = new Set(["active", "waiting", "waiting-children", "delayed", "prioritized"]);
 
-interface AnalysisQueueState { connection: Redis | null; queue: Queue | null }
-const globalForAnalysis = globalThis as unknown as { __modewardenAnalysisQueue?: AnalysisQueueState };
-
-function state(): AnalysisQueueState {
-  globalForAnalysis.__modewardenAnalysisQueue ??= { connection: null, queue: null };
-  return globalForAnalysis.__modewardenAnalysisQueue;
-}
-
 /** The process-wide producer of the analysis queue. */
 export function getAnalysisQueue(): Queue {
-  const s = state();
-  if (!s.queue) {
-    s.connection ??= createRedisConnection();
-    s.queue = new Queue(ANALYSIS_QUEUE, { connection: s.connection, defaultJobOptions: ANALYSIS_JOB_OPTIONS });
-  }
-  return s.queue;
+  return getQueue(ANALYSIS_QUEUE, ANALYSIS_JOB_OPTIONS);
 }
 
 /**
@@ -85,15 +71,4 @@ export async function hasLiveAnalysisJob(recordId: string, versions: readonly nu
     if (job && LIVE_STATES.has(await job.getState())) return true;
   }
   return false;
-}
-
-/** Close the producer and its connection (scripts, tests, worker shutdown). */
-export async function closeAnalysisQueue(): Promise<void> {
-  const s = state();
-  const q = s.queue;
-  const conn = s.connection;
-  s.queue = null;
-  s.connection = null;
-  if (q) await q.close();
-  if (conn) await conn.quit().catch(() => conn.disconnect());
 }

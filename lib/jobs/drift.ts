@@ -4,12 +4,11 @@
  * of the asset waits is ignored (the waiting job will read the newest data); the replay is
  * idempotent, so a retry is harmless.
  */
-import { Queue, type JobsOptions } from "bullmq";
-import type { Redis } from "ioredis";
+import { type Queue, type JobsOptions } from "bullmq";
 import { z } from "zod";
-import { createRedisConnection } from "./connection";
+import { getQueue, QUEUE_NAMES } from "./queues";
 
-export const DRIFT_QUEUE = "drift";
+export const DRIFT_QUEUE = QUEUE_NAMES.drift;
 
 export const DriftJob = z.strictObject({ assetId: z.uuid() });
 export type DriftJob = z.infer<typeof DriftJob>;
@@ -26,22 +25,9 @@ export const driftJobId = (assetId: string): string => `drift-${assetId}`;
 
 const WAITING_STATES = new Set(["waiting", "delayed", "prioritized", "waiting-children"]);
 
-interface DriftQueueState { connection: Redis | null; queue: Queue | null }
-const globalForDrift = globalThis as unknown as { __modewardenDriftQueue?: DriftQueueState };
-
-function state(): DriftQueueState {
-  globalForDrift.__modewardenDriftQueue ??= { connection: null, queue: null };
-  return globalForDrift.__modewardenDriftQueue;
-}
-
 /** The process-wide producer of the drift queue. */
 export function getDriftQueue(): Queue {
-  const s = state();
-  if (!s.queue) {
-    s.connection ??= createRedisConnection();
-    s.queue = new Queue(DRIFT_QUEUE, { connection: s.connection, defaultJobOptions: DRIFT_JOB_OPTIONS });
-  }
-  return s.queue;
+  return getQueue(DRIFT_QUEUE, DRIFT_JOB_OPTIONS);
 }
 
 /**
@@ -70,15 +56,4 @@ export async function enqueueDrift(assetId: string): Promise<{ jobId: string; ad
   }
   await queue.add("replay", payload, { jobId });
   return { jobId, added: true };
-}
-
-/** Close the producer and its connection (scripts, tests, worker shutdown). */
-export async function closeDriftQueue(): Promise<void> {
-  const s = state();
-  const q = s.queue;
-  const conn = s.connection;
-  s.queue = null;
-  s.connection = null;
-  if (q) await q.close();
-  if (conn) await conn.quit().catch(() => conn.disconnect());
 }

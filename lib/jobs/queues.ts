@@ -11,6 +11,8 @@ import { createRedisConnection } from "./connection";
 
 export const QUEUE_NAMES = {
   mail: "mail",
+  analysis: "analysis",
+  drift: "drift",
 } as const;
 export type QueueName = (typeof QUEUE_NAMES)[keyof typeof QUEUE_NAMES];
 
@@ -42,13 +44,17 @@ function state(): QueueState {
   return globalForQueues.__modewardenQueues;
 }
 
-/** The process-wide producer for a queue (one shared Redis connection for all producers). */
-export function getQueue(name: QueueName): Queue {
+/**
+ * The process-wide producer for a queue (one shared Redis connection for all producers).
+ * `defaultJobOptions` applies when the producer is first created: each queue's own module
+ * (lib/jobs/analysis.ts, lib/jobs/drift.ts) passes its retry policy.
+ */
+export function getQueue(name: QueueName, defaultJobOptions: JobsOptions = DEFAULT_JOB_OPTIONS): Queue {
   const s = state();
   let q = s.queues.get(name);
   if (!q) {
     s.connection ??= createRedisConnection();
-    q = new Queue(name, { connection: s.connection, defaultJobOptions: DEFAULT_JOB_OPTIONS });
+    q = new Queue(name, { connection: s.connection, defaultJobOptions });
     s.queues.set(name, q);
   }
   return q;

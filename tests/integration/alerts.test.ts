@@ -16,7 +16,6 @@ import * as closeRoute from "@/app/api/v1/alerts/[alertId]/close/route";
 import { closeDb, db } from "@/lib/db/knex";
 import { insertAlertIfNew } from "@/lib/db/repos/alert.repo";
 import type { Alert } from "@/lib/domain/drift";
-import { closeDriftQueue } from "@/lib/jobs/drift";
 import { env } from "@/lib/config/env";
 import { closeMailTransport } from "@/lib/email/transport";
 import { createRedisConnection } from "@/lib/jobs/connection";
@@ -43,7 +42,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await worker.close();
   await connection.quit();
-  await Promise.all([closeQueues(), closeDriftQueue()]);
+  await closeQueues();
   closeMailTransport();
   await closeDb();
 });

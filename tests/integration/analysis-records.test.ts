@@ -17,7 +17,7 @@ import * as modeRoute from "@/app/api/v1/assets/[assetId]/tracked-modes/[tracked
 import { closeDb, db } from "@/lib/db/knex";
 import { updateRecordStatus } from "@/lib/db/repos/record.repo";
 import { NO_RAW_SAMPLES_BLOB_KEY } from "@/lib/domain/records";
-import { analysisJobId, closeAnalysisQueue, getAnalysisQueue } from "@/lib/jobs/analysis";
+import { analysisJobId, getAnalysisQueue } from "@/lib/jobs/analysis";
 import { analyseRecord } from "@/lib/services/analysis/analysis.service";
 import { listRecords, type RecordDetail } from "@/lib/services/analysis/records.service";
 import type { TrackedModeView } from "@/lib/services/tracking/tracked-mode.service";
@@ -27,6 +27,7 @@ import { shearFrameModes, simulateAmbientRecord, simulateForcedTest } from "@/li
 import { processAnalysisJob } from "@/workers/analysis.worker";
 import { call, makeTeam, tokenFor, unique } from "./support/factories";
 import { CHANNELS, f32Of, makeGatewayAsset, metaOf, noiseRecord, send, uploadRequest, type GatewaySetup } from "./support/uploads";
+import { closeQueues } from "@/lib/jobs/queues";
 
 // 4-storey shear frame, closed form 2.708, 7.797, 11.94, 14.65 Hz [pub: Chopra, Dynamics of
 // Structures, MDOF chapters]; 100 Hz, 200 s, ζ = 0.5 %.
@@ -45,7 +46,7 @@ beforeAll(async () => {
   otherEngineer = await tokenFor(other.team.engineer);
 });
 afterAll(async () => {
-  await closeAnalysisQueue();
+  await closeQueues();
   await closeRateLimiter();
   await closeDb();
 });

@@ -13,11 +13,12 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import * as recordsRoute from "@/app/api/v1/records/route";
 import { closeDb, db } from "@/lib/db/knex";
 import { createRedisConnection } from "@/lib/jobs/connection";
-import { closeAnalysisQueue, getAnalysisQueue, hasLiveAnalysisJob } from "@/lib/jobs/analysis";
+import { getAnalysisQueue, hasLiveAnalysisJob } from "@/lib/jobs/analysis";
 import { sweepPendingRecords } from "@/lib/services/analysis/sweeper";
 import { closeRateLimiter } from "@/lib/services/ingest/rate-limit";
 import { shearFrameModes, simulateAmbientRecord } from "@/lib/simulate";
 import { f32Of, makeGatewayAsset, metaOf, send, uploadRequest, type GatewaySetup } from "./support/uploads";
+import { closeQueues } from "@/lib/jobs/queues";
 
 const ROOT = fileURLToPath(new URL("../..", import.meta.url));
 // Uniform 4-storey shear frame [pub: Chopra, Dynamics of Structures, MDOF chapters]: a
@@ -119,7 +120,7 @@ afterEach(async () => {
 });
 afterAll(async () => {
   await getAnalysisQueue().obliterate({ force: true });
-  await closeAnalysisQueue();
+  await closeQueues();
   await closeRateLimiter();
   await closeDb();
 });

@@ -11,7 +11,7 @@ import { closeDb, db } from "@/lib/db/knex";
 import { updateRecordStatus } from "@/lib/db/repos/record.repo";
 import type { TrackedMode } from "@/lib/domain/records";
 import { createRedisConnection } from "@/lib/jobs/connection";
-import { ANALYSIS_QUEUE, analysisJobId, closeAnalysisQueue, getAnalysisQueue, hasLiveAnalysisJob } from "@/lib/jobs/analysis";
+import { ANALYSIS_QUEUE, analysisJobId, getAnalysisQueue, hasLiveAnalysisJob } from "@/lib/jobs/analysis";
 import { insertAnalysisSettingsVersion } from "@/lib/db/repos/analysis-settings.repo";
 import { analyseRecord } from "@/lib/services/analysis/analysis.service";
 import { getRecordDetail } from "@/lib/services/analysis/records.service";
@@ -23,6 +23,7 @@ import { blobStore } from "@/lib/storage";
 import { createAnalysisWorker, processAnalysisJob } from "@/workers/analysis.worker";
 import type { Job } from "bullmq";
 import { tokenFor } from "./support/factories";
+import { closeQueues } from "@/lib/jobs/queues";
 import {
   CHANNELS, addTrackedMode, csvOf, f32Of, makeGatewayAsset, metaOf, noiseRecord, send, uploadRequest, type GatewaySetup,
 } from "./support/uploads";
@@ -55,7 +56,7 @@ beforeAll(async () => {
   for (const [j, m] of FRAME.entries()) tracked.push(await addTrackedMode(g.asset.id, LABELS[j], m.frequencyHz * 1.03, 0.12, m.shape));
 });
 afterAll(async () => {
-  await closeAnalysisQueue();
+  await closeQueues();
   await closeRateLimiter();
   await closeDb();
 });

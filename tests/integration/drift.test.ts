@@ -12,7 +12,7 @@ import { env } from "@/lib/config/env";
 import { closeDb, db } from "@/lib/db/knex";
 import { closeMailTransport } from "@/lib/email/transport";
 import { createRedisConnection } from "@/lib/jobs/connection";
-import { closeDriftQueue, enqueueDrift } from "@/lib/jobs/drift";
+import { enqueueDrift } from "@/lib/jobs/drift";
 import { updateAssetById } from "@/lib/db/repos/asset.repo";
 import { createDriftWorker } from "@/workers/drift.worker";
 import { closeQueues } from "@/lib/jobs/queues";
@@ -59,7 +59,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await worker.close();
   await connection.quit();
-  await Promise.all([closeQueues(), closeDriftQueue()]);
+  await closeQueues();
   closeMailTransport();
   await closeDb();
 });

@@ -6,11 +6,11 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as historyRoute from "@/app/api/v1/assets/[assetId]/history/route";
 import { closeDb, db } from "@/lib/db/knex";
-import { closeDriftQueue } from "@/lib/jobs/drift";
 import { createAsset } from "@/lib/services/assets/asset.service";
 import { importModalHistory } from "@/lib/services/drift/history-import.service";
 import { listTrackedModes } from "@/lib/services/tracking/tracked-mode.service";
 import { call, makeTeam, tokenFor, validAsset } from "./support/factories";
+import { closeQueues } from "@/lib/jobs/queues";
 
 type Team = Awaited<ReturnType<typeof makeTeam>>;
 let team: Team;
@@ -20,7 +20,7 @@ beforeAll(async () => {
   [team, foreign] = await Promise.all([makeTeam(), makeTeam()]);
 });
 afterAll(async () => {
-  await closeDriftQueue();
+  await closeQueues();
   await closeDb();
 });
 

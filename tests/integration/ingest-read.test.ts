@@ -8,11 +8,11 @@ import * as heartbeatRoute from "@/app/api/v1/gateways/heartbeat/route";
 import * as recordsRoute from "@/app/api/v1/records/route";
 import * as recordRoute from "@/app/api/v1/records/[recordId]/route";
 import { closeDb, db } from "@/lib/db/knex";
-import { closeAnalysisQueue } from "@/lib/jobs/analysis";
 import { createGateway, revokeGateway } from "@/lib/services/assets/gateway.service";
 import { closeRateLimiter } from "@/lib/services/ingest/rate-limit";
 import { sessionCookieFor, tokenFor, unique } from "./support/factories";
 import { CHANNELS, csvOf, makeGatewayAsset, metaOf, noiseRecord, send, uploadRequest, type GatewaySetup } from "./support/uploads";
+import { closeQueues } from "@/lib/jobs/queues";
 
 let g: GatewaySetup;
 let foreign: GatewaySetup;
@@ -25,7 +25,7 @@ beforeAll(async () => {
   recordId = r.body.record!.id;
 });
 afterAll(async () => {
-  await closeAnalysisQueue();
+  await closeQueues();
   await closeRateLimiter();
   await closeDb();
 });

@@ -8,12 +8,13 @@ import { randomUUID } from "node:crypto";
 import * as recordsRoute from "@/app/api/v1/records/route";
 import { resetEnvForTests } from "@/lib/config/env";
 import { closeDb, db } from "@/lib/db/knex";
-import { analysisJobId, closeAnalysisQueue, getAnalysisQueue } from "@/lib/jobs/analysis";
+import { analysisJobId, getAnalysisQueue } from "@/lib/jobs/analysis";
 import { createGateway, revokeGateway } from "@/lib/services/assets/gateway.service";
 import { decodeSamples } from "@/lib/services/ingest/decode";
 import { closeRateLimiter } from "@/lib/services/ingest/rate-limit";
 import { blobStore } from "@/lib/storage";
 import { tokenFor, unique } from "./support/factories";
+import { closeQueues } from "@/lib/jobs/queues";
 import {
   CHANNELS, addTrackedMode, csvOf, f32Of, footprint, gzip, makeGatewayAsset, metaOf, noiseRecord, send, uploadRequest,
   type GatewaySetup,
@@ -30,7 +31,7 @@ beforeAll(async () => {
   [g, foreign] = await Promise.all([makeGatewayAsset(), makeGatewayAsset()]);
 });
 afterAll(async () => {
-  await closeAnalysisQueue();
+  await closeQueues();
   await closeRateLimiter();
   await closeDb();
 });
