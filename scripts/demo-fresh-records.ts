@@ -7,6 +7,8 @@
  *   tsx scripts/demo-fresh-records.ts [--url http://127.0.0.1:3000] [--count 2]
  */
 import { DEMO_ASSETS } from "@/db/seeds/larkspur/data";
+import { demoModels, siteTemperatureC } from "@/db/seeds/larkspur/demo-modal";
+import { frequencyAtTemperature } from "@/lib/simulate";
 import { demoGatewayKey } from "@/db/seeds/larkspur/seed-demo";
 import { runGatewaySimulation, type UploadAnswer } from "./lib/gateway-sim";
 
@@ -47,11 +49,20 @@ async function outcome(key: string, id: string): Promise<string> {
 }
 
 async function main(): Promise<void> {
+  const models = demoModels(DEMO_ASSETS);
+  // Fresh records continue the demo history's story: the site temperature of now, the same
+  // frequency–temperature relation, and Heron Reach's stiffness loss.
+  const temperatureC = siteTemperatureC(new Date());
   for (const [i, asset] of DEMO_ASSETS.entries()) {
     const key = demoGatewayKey(asset.gateway.slug);
+    const model = models[i];
+    const stiffness = model.damage?.stiffnessFactor ?? 1;
+    const f20ByLabel = new Map(model.modes.map((m) => [m.label, m.f20]));
     try {
       const { answers } = await runGatewaySimulation({
         url, key, count, intervalS: 0, durationS: 300, rateHz: 50, seed: (Date.now() % 1e6) + 100 * i, defects: DEFECTS[asset.gateway.slug],
+        temperatureC: () => temperatureC,
+        trackedModeFrequencyHz: (m) => frequencyAtTemperature(f20ByLabel.get(m.label) ?? m.nominalFrequencyHz, temperatureC, model.sensitivity) * Math.sqrt(stiffness),
       });
       const parts = await Promise.all(answers.map(async (a) => {
         const id = recordIdOf(a);

@@ -30,6 +30,10 @@ export interface SimulationOptions {
   seed: number;
   /** Mode frequencies (Hz) instead of the tracked modes'. */
   modesHz?: number[];
+  /** Frequency of a tracked mode in this record (default: its nominal frequency). */
+  trackedModeFrequencyHz?: (mode: { label: string; nominalFrequencyHz: number }) => number;
+  /** Temperature reported with each record (°C; default: a daily cycle around 12 °C). */
+  temperatureC?: (startedAt: Date) => number;
   /** `kind[:code],…` (flatLine, spikes, gap, clip, hum). */
   defects?: string;
   /** Called after each upload with the server's answer. */
@@ -86,7 +90,7 @@ export async function runGatewaySimulation(o: SimulationOptions): Promise<{ self
   const accel = self.channels.filter((c) => c.quantity === "acceleration");
   if (accel.length === 0) throw new UsageError(`asset ${self.asset.name} has no active acceleration channel`);
   const codes = accel.map((c) => c.code);
-  const freqs = o.modesHz ?? self.trackedModes.map((m) => m.nominalFrequencyHz);
+  const freqs = o.modesHz ?? self.trackedModes.map((m) => o.trackedModeFrequencyHz?.(m) ?? m.nominalFrequencyHz);
   if (freqs.length === 0) throw new UsageError("the asset has no tracked modes: pass --modes f1,f2,… (Hz)");
   const modes: SimulatedMode[] = freqs.map((f, j) => {
     const ref = o.modesHz ? null : self.trackedModes[j].referenceShape;
@@ -102,7 +106,7 @@ export async function runGatewaySimulation(o: SimulationOptions): Promise<{ self
     if (defects.length) data = applyDefects(data, fs, defects, createRng(o.seed + i)).data;
     const meta = {
       recordId: `sim-${startedAt.toISOString().replace(/[:.]/g, "")}-${o.seed + i}`, startedAt: startedAt.toISOString(), sampleRateHz: fs,
-      channels: codes, units: "m/s2", temperatureC: Math.round((12 + 8 * Math.sin((2 * Math.PI * startedAt.getUTCHours()) / 24)) * 10) / 10,
+      channels: codes, units: "m/s2", temperatureC: o.temperatureC?.(startedAt) ?? Math.round((12 + 8 * Math.sin((2 * Math.PI * startedAt.getUTCHours()) / 24)) * 10) / 10,
     };
     const form = new FormData();
     form.append("meta", JSON.stringify(meta));
