@@ -1,7 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useEffect } from "react";
 import { useFormAction } from "@/lib/client/use-form-action";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
@@ -9,11 +7,7 @@ import { Notice } from "@/components/ui/notice";
 import { updateProfileAction } from "../actions";
 
 export function ProfileForm({ displayName }: { displayName: string }) {
-  const router = useRouter();
-  const { state, onSubmit, pending, fieldErrors, message } = useFormAction(updateProfileAction);
-  useEffect(() => {
-    if (state?.ok) router.refresh();
-  }, [state, router]);
+  const { state, onSubmit, pending, fieldErrors, message } = useFormAction(updateProfileAction, { refreshOnSuccess: true });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {state?.ok ? <Notice tone="success">Saved.</Notice> : null}

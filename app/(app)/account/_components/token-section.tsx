@@ -1,7 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useEffect, useRef } from "react";
 import { useFormAction } from "@/lib/client/use-form-action";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
@@ -21,11 +19,7 @@ export interface TokenRow {
 }
 
 function RevokeTokenButton({ token }: { token: TokenRow }) {
-  const router = useRouter();
-  const { state, onSubmit, pending } = useFormAction(revokeApiTokenAction);
-  useEffect(() => {
-    if (state?.ok) router.refresh();
-  }, [state, router]);
+  const { onSubmit, pending } = useFormAction(revokeApiTokenAction, { refreshOnSuccess: true });
   return (
     <form
       onSubmit={(e) => {
@@ -45,15 +39,7 @@ function RevokeTokenButton({ token }: { token: TokenRow }) {
 }
 
 export function TokenSection({ tokens, timeZone }: { tokens: TokenRow[]; timeZone: string }) {
-  const router = useRouter();
-  const { state, onSubmit, pending, fieldErrors, message } = useFormAction(createApiTokenAction);
-  const handled = useRef<unknown>(null);
-  useEffect(() => {
-    if (state?.ok && handled.current !== state) {
-      handled.current = state;
-      router.refresh();
-    }
-  }, [state, router]);
+  const { state, onSubmit, pending, fieldErrors, message } = useFormAction(createApiTokenAction, { refreshOnSuccess: true });
   return (
     <div className="space-y-4">
       <p className="text-xs text-muted">

@@ -1,7 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useEffect } from "react";
 import type { Member } from "@/lib/domain/types";
 import { ROLES } from "@/lib/auth/permissions";
 import { useFormAction } from "@/lib/client/use-form-action";
@@ -15,11 +13,7 @@ import { changeMemberRoleAction, removeMemberAction } from "../actions";
 export type MemberRow = Omit<Member, "joinedAt"> & { joinedAt: string };
 
 function RoleCell({ member }: { member: MemberRow }) {
-  const router = useRouter();
-  const { state, onSubmit, pending, message, fieldErrors } = useFormAction(changeMemberRoleAction);
-  useEffect(() => {
-    if (state?.ok) router.refresh();
-  }, [state, router]);
+  const { onSubmit, pending, message, fieldErrors } = useFormAction(changeMemberRoleAction, { refreshOnSuccess: true });
   const err = message ?? fieldErrors.role?.[0] ?? null;
   return (
     <form onSubmit={onSubmit} className="flex items-center gap-1.5">
@@ -40,11 +34,7 @@ function RoleCell({ member }: { member: MemberRow }) {
 }
 
 function RemoveButton({ member }: { member: MemberRow }) {
-  const router = useRouter();
-  const { state, onSubmit, pending, message } = useFormAction(removeMemberAction);
-  useEffect(() => {
-    if (state?.ok) router.refresh();
-  }, [state, router]);
+  const { onSubmit, pending, message } = useFormAction(removeMemberAction, { refreshOnSuccess: true });
   return (
     <form
       onSubmit={(e) => {

@@ -1,7 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useEffect } from "react";
 import { useFormAction } from "@/lib/client/use-form-action";
 import { Button } from "@/components/ui/button";
 import { formatDateTime, ROLE_LABELS } from "@/components/ui/format";
@@ -15,11 +13,7 @@ export interface PendingInvitation {
 }
 
 function RevokeInvitation({ id }: { id: string }) {
-  const router = useRouter();
-  const { state, onSubmit, pending, message } = useFormAction(revokeInvitationAction);
-  useEffect(() => {
-    if (state?.ok) router.refresh();
-  }, [state, router]);
+  const { onSubmit, pending, message } = useFormAction(revokeInvitationAction, { refreshOnSuccess: true });
   return (
     <form onSubmit={onSubmit}>
       <input type="hidden" name="id" value={id} />

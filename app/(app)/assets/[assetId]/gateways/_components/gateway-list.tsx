@@ -1,7 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useEffect, useRef } from "react";
 import type { GatewayJson } from "@/lib/domain/types";
 import { useFormAction } from "@/lib/client/use-form-action";
 import { Button } from "@/components/ui/button";
@@ -13,15 +11,7 @@ import { Table, Td, Th } from "@/components/ui/table";
 import { createGatewayAction, revokeGatewayAction } from "../../actions";
 
 function CreateGatewayForm({ assetId }: { assetId: string }) {
-  const router = useRouter();
-  const { state, onSubmit, pending, fieldErrors, message } = useFormAction(createGatewayAction);
-  const handled = useRef<unknown>(null);
-  useEffect(() => {
-    if (state?.ok && handled.current !== state) {
-      handled.current = state;
-      router.refresh();
-    }
-  }, [state, router]);
+  const { state, onSubmit, pending, fieldErrors, message } = useFormAction(createGatewayAction, { refreshOnSuccess: true });
   return (
     <div className="space-y-3 border-t border-line p-4">
       <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-start gap-3">
@@ -38,11 +28,7 @@ function CreateGatewayForm({ assetId }: { assetId: string }) {
 }
 
 function RevokeButton({ assetId, gateway }: { assetId: string; gateway: GatewayJson }) {
-  const router = useRouter();
-  const { state, onSubmit, pending, message } = useFormAction(revokeGatewayAction);
-  useEffect(() => {
-    if (state?.ok) router.refresh();
-  }, [state, router]);
+  const { onSubmit, pending, message } = useFormAction(revokeGatewayAction, { refreshOnSuccess: true });
   return (
     <form
       onSubmit={(e) => {

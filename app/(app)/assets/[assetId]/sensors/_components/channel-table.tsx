@@ -110,11 +110,7 @@ function EditRow({ assetId, channel, onDone }: { assetId: string; channel?: Sens
 }
 
 function DeactivateButton({ assetId, channelId, code }: { assetId: string; channelId: string; code: string }) {
-  const router = useRouter();
-  const { state, onSubmit, pending, message } = useFormAction(deactivateChannelAction);
-  useEffect(() => {
-    if (state?.ok) router.refresh();
-  }, [state, router]);
+  const { onSubmit, pending, message } = useFormAction(deactivateChannelAction, { refreshOnSuccess: true });
   return (
     <form
       onSubmit={(e) => {

@@ -1,19 +1,13 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useEffect } from "react";
 import { Button } from "@/components/ui/button";
 import { useFormAction } from "@/lib/client/use-form-action";
 import { reprocessAction, retryAction } from "../actions";
 
 /** Reprocess (any record) or Retry (a failed one) — engineers only; the page decides. */
 export function RecordControls({ assetId, recordId, failed }: { assetId: string; recordId: string; failed: boolean }) {
-  const router = useRouter();
   const action = failed ? retryAction : reprocessAction;
-  const { state, onSubmit, pending, message } = useFormAction(action);
-  useEffect(() => {
-    if (state?.ok) router.refresh();
-  }, [state, router]);
+  const { state, onSubmit, pending, message } = useFormAction(action, { refreshOnSuccess: true });
   return (
     <form onSubmit={onSubmit} className="flex items-center gap-2" data-testid="record-controls">
       <input type="hidden" name="assetId" value={assetId} />
