@@ -1,0 +1,93 @@
+/**
+ * Response levels of one record for serviceability: per channel axis (x, y, z; the sign of a
+ * channel's direction is ignored), the largest peak |a|, the largest 1-second RMS and the
+ * whole-record RMS over the channels on that axis, in m/s².
+ *
+ * Each channel's mean is removed first (an accelerometer offset is not a vibration). The
+ * 1-second RMS is a running RMS over windows of round(fs) samples sliding by one sample,
+ * as in the running-RMS method of ISO 2631-1 §6.3.2 with a rectangular window [pub]; it is
+ * computed from a cumulative sum of squares (O(n) per channel). Non-finite samples are
+ * skipped (taken as the mean) so that one bad value does not void the record.
+ */
+import { accelerationFactor, type AccelerationUnit } from "./units";
+import { assertPositive } from "@/lib/numeric/validate";
+
+export type ResponseAxis = "x" | "y" | "z";
+
+export interface AxisResponseLevel {
+  axis: ResponseAxis;
+  /** Largest |a| after removing the mean, m/s². */
+  peakMps2: number;
+  /** Largest running 1-s RMS, m/s² (the whole-record RMS when the record is shorter than 1 s). */
+  maxRms1sMps2: number;
+  /** Whole-record RMS (largest over the axis' channels), m/s². */
+  rmsMps2: number;
+  /** Channel code where the peak occurred. */
+  peakChannel: string;
+}
+
+export interface ResponseLevelInput {
+  sampleRateHz: number;
+  units: AccelerationUnit;
+  /** One per column of `data`: its code and its direction ("x", "-z", …). */
+  channels: { code: string; direction: string }[];
+  /** One array per channel, equal lengths ≥ 1. */
+  data: ArrayLike<number>[];
+}
+
+interface ChannelLevel { peak: number; maxRms1s: number; rms: number }
+
+function channelLevel(x: ArrayLike<number>, factor: number, window: number): ChannelLevel {
+  const n = x.length;
+  let sum = 0;
+  let count = 0;
+  for (let i = 0; i < n; i++) if (Number.isFinite(x[i])) { sum += x[i]; count++; }
+  const mean = count ? sum / count : 0;
+  const sq = new Float64Array(n + 1); // sq[i] = Σ_{k<i} (x_k − mean)²·factor²
+  let peak = 0;
+  for (let i = 0; i < n; i++) {
+    const v = Number.isFinite(x[i]) ? (x[i] - mean) * factor : 0;
+    peak = Math.max(peak, Math.abs(v));
+    sq[i + 1] = sq[i] + v * v;
+  }
+  const rms = Math.sqrt(sq[n] / n);
+  if (n <= window) return { peak, maxRms1s: rms, rms };
+  let maxMs = 0;
+  for (let i = window; i <= n; i++) maxMs = Math.max(maxMs, sq[i] - sq[i - window]);
+  return { peak, maxRms1s: Math.sqrt(Math.max(0, maxMs) / window), rms };
+}
+
+/**
+ * Peak and running 1-s RMS per axis.
+ *
+ * @param input - see {@link ResponseLevelInput}; samples in `units` ('m/s2', 'g', 'mg').
+ * @returns one entry per axis present among the channels, ordered x, y, z; [] for no channels.
+ * @throws TypeError for a non-finite sample rate; RangeError for a rate ≤ 0, a channel/data
+ *   count mismatch or unequal lengths.
+ */
+export function computeResponseLevels(input: ResponseLevelInput): AxisResponseLevel[] {
+  assertPositive(input.sampleRateHz, "sampleRateHz");
+  if (input.channels.length !== input.data.length) {
+    throw new RangeError(`channels and data must have equal counts (got ${input.channels.length} ≠ ${input.data.length})`);
+  }
+  const n = input.data[0]?.length ?? 0;
+  if (input.data.some((d) => d.length !== n || d.length < 1)) throw new RangeError("every channel must have the same length ≥ 1");
+  const factor = accelerationFactor(input.units);
+  const window = Math.max(1, Math.round(input.sampleRateHz));
+  const out: AxisResponseLevel[] = [];
+  for (const axis of ["x", "y", "z"] as const) {
+    let best: AxisResponseLevel | null = null;
+    input.channels.forEach((c, i) => {
+      if (c.direction.replace("-", "") !== axis) return;
+      const l = channelLevel(input.data[i], factor, window);
+      if (!best) best = { axis, peakMps2: l.peak, maxRms1sMps2: l.maxRms1s, rmsMps2: l.rms, peakChannel: c.code };
+      else {
+        if (l.peak > best.peakMps2) { best.peakMps2 = l.peak; best.peakChannel = c.code; }
+        best.maxRms1sMps2 = Math.max(best.maxRms1sMps2, l.maxRms1s);
+        best.rmsMps2 = Math.max(best.rmsMps2, l.rms);
+      }
+    });
+    if (best) out.push(best);
+  }
+  return out;
+}
