@@ -51,3 +51,23 @@ export async function ensureAnalysisSettings(db: Db, assetId: string, settings: 
   if (!latest) throw new Error(`analysis settings of asset ${assetId} vanished`);
   return latest;
 }
+
+export interface AnalysisSettingsVersionRow extends AnalysisSettings {
+  /** Display name of the user who saved it (null: created by the system, e.g. version 1). */
+  createdByName: string | null;
+}
+
+/** The asset's settings versions, newest first, at most `limit`, with who saved each. */
+export async function listAnalysisSettingsVersions(db: Db, assetId: string, limit: number): Promise<AnalysisSettingsVersionRow[]> {
+  const rows = await withDbErrors(() =>
+    db("analysis_settings as s")
+      .leftJoin("users as u", "u.id", "s.created_by_user_id")
+      .select(...COLS.map((c) => `s.${c}`), "u.display_name as created_by_name")
+      .where("s.asset_id", assetId)
+      .orderBy("s.version", "desc")
+      .limit(limit),
+  );
+  return (rows as (AnalysisSettingsRow & { created_by_name: string | null })[]).map((r) => ({
+    ...toAnalysisSettings(r), createdByName: r.created_by_name,
+  }));
+}

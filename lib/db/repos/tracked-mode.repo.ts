@@ -1,5 +1,6 @@
 import type { Db } from "@/lib/db/knex";
 import { withDbErrors } from "@/lib/db/pg-errors";
+import { AppError, isAppError } from "@/lib/http/errors";
 import { toTrackedMode, type TrackedModeRow } from "@/lib/db/rows-records";
 import type { TrackedMode } from "@/lib/domain/records";
 
@@ -10,6 +11,19 @@ const COLS = [
 
 export type TrackedModeWrite = Pick<TrackedMode, "label" | "nominalFrequencyHz" | "bandLowHz" | "bandHighHz" | "referenceShape">
   & Partial<Pick<TrackedMode, "sourceRecordId" | "sourceModeIndex">>;
+
+/** A used label is a field error of `label` (the unique key is (asset, label)). */
+async function withLabelConflict<T>(fn: () => Promise<T>): Promise<T> {
+  try {
+    return await withDbErrors(fn);
+  } catch (e) {
+    if (isAppError(e) && e.code === "conflict" && e.details?.constraint === "tracked_modes_asset_label_unique") {
+      const message = "Another tracked mode of this asset has this label.";
+      throw new AppError("conflict", message, { details: e.details, fieldErrors: { label: [message] } });
+    }
+    throw e;
+  }
+}
 
 export type TrackedModePatch = Partial<Pick<TrackedMode, "label" | "nominalFrequencyHz" | "bandLowHz" | "bandHighHz" | "referenceShape" | "active">>;
 
@@ -33,7 +47,7 @@ export async function findTrackedModeById(db: Db, id: string): Promise<TrackedMo
 
 /** Insert a tracked mode; a label already used on the asset raises AppError('conflict'). */
 export async function insertTrackedMode(db: Db, assetId: string, m: TrackedModeWrite): Promise<TrackedMode> {
-  const [row] = await withDbErrors(() =>
+  const [row] = await withLabelConflict(() =>
     db("tracked_modes")
       .insert({
         asset_id: assetId, label: m.label, nominal_frequency_hz: m.nominalFrequencyHz, band_low_hz: m.bandLowHz,
@@ -54,7 +68,7 @@ export async function updateTrackedModeById(db: Db, id: string, p: TrackedModePa
   if (p.bandHighHz !== undefined) update.band_high_hz = p.bandHighHz;
   if (p.referenceShape !== undefined) update.reference_shape = p.referenceShape === null ? null : JSON.stringify(p.referenceShape);
   if (p.active !== undefined) update.active = p.active;
-  const [row] = await withDbErrors(() => db("tracked_modes").where({ id }).update(update).returning(COLS));
+  const [row] = await withLabelConflict(() => db("tracked_modes").where({ id }).update(update).returning(COLS));
   return row ? toTrackedMode(row as TrackedModeRow) : null;
 }
 

@@ -11,7 +11,7 @@ import { ensureAnalysisSettings } from "@/lib/db/repos/analysis-settings.repo";
 import { listRecordIdsInRange, markRecordsQueued } from "@/lib/db/repos/record-list.repo";
 import { findRecordById, updateRecordStatus } from "@/lib/db/repos/record.repo";
 import type { Actor, Asset } from "@/lib/domain/types";
-import { hasRawSamples, type VibrationRecord } from "@/lib/domain/records";
+import { hasRawSamples, type RecordStatus, type VibrationRecord } from "@/lib/domain/records";
 import { AppError } from "@/lib/http/errors";
 import { enqueueAnalysis } from "@/lib/jobs/analysis";
 import { recordAudit } from "@/lib/services/audit/audit.service";
@@ -58,6 +58,33 @@ export async function reprocessRecord(actor: Actor, assetId: string, recordId: s
   return { recordId: record.id, settingsVersion: version, jobId, added };
 }
 
+/** What a range reprocess would do: the records it queues and those it leaves alone. */
+export interface ReprocessRangePlan { settingsVersion: number; total: number; toQueue: number; skipped: number }
+
+/** Records still waiting for their first analysis run with the latest version anyway; demo history has no raw samples. */
+const isRequeueable = (r: { status: RecordStatus; blobKey: string }) => r.status !== "received" && r.status !== "queued" && hasRawSamples(r);
+
+/** The asset's records of [from, to) that a range reprocess may take (at most MAX_REPROCESS_RECORDS, else 'unprocessable'). */
+async function loadRange(actor: Actor, assetId: string, range: ReprocessRangeInput, trx: Db) {
+  const asset = await loadOwnAsset(actor, assetId, trx);
+  const rows = await listRecordIdsInRange(trx, asset.id, range.from, range.to, MAX_REPROCESS_RECORDS + 1);
+  if (rows.length > MAX_REPROCESS_RECORDS) {
+    throw new AppError("unprocessable", `The range holds more than ${MAX_REPROCESS_RECORDS} records: choose a shorter one.`, {
+      fieldErrors: { to: [`At most ${MAX_REPROCESS_RECORDS} records per request.`] },
+    });
+  }
+  const settings = await ensureAnalysisSettings(trx, asset.id, DEFAULT_ANALYSIS_SETTINGS);
+  const ids = rows.filter(isRequeueable).map((r) => r.id);
+  return { asset, ids, total: rows.length, version: settings.version };
+}
+
+/** Preview of {@link reprocessRange}: how many records it would queue, with which settings version. Changes nothing. */
+export async function planReprocessRange(actor: Actor, assetId: string, range: ReprocessRangeInput): Promise<ReprocessRangePlan> {
+  assertCan(actor, "record:reprocess");
+  const { ids, total, version } = await loadRange(actor, assetId, range, db());
+  return { settingsVersion: version, total, toQueue: ids.length, skipped: total - ids.length };
+}
+
 /**
  * Queue every record of the asset that started in [from, to) with the current settings
  * version. Records still waiting for their first analysis (received, queued) are left alone:
@@ -69,21 +96,13 @@ export async function reprocessRange(
 ): Promise<{ settingsVersion: number; queued: number; skipped: number }> {
   assertCan(actor, "record:reprocess");
   const { ids, skipped, version } = await db().transaction(async (trx) => {
-    const asset = await loadOwnAsset(actor, assetId, trx);
-    const rows = await listRecordIdsInRange(trx, asset.id, range.from, range.to, MAX_REPROCESS_RECORDS + 1);
-    if (rows.length > MAX_REPROCESS_RECORDS) {
-      throw new AppError("unprocessable", `The range holds more than ${MAX_REPROCESS_RECORDS} records: choose a shorter one.`, {
-        fieldErrors: { to: [`At most ${MAX_REPROCESS_RECORDS} records per request.`] },
-      });
-    }
-    const settings = await ensureAnalysisSettings(trx, asset.id, DEFAULT_ANALYSIS_SETTINGS);
-    const ids = rows.filter((r) => r.status !== "received" && r.status !== "queued" && hasRawSamples(r)).map((r) => r.id);
+    const { asset, ids, total, version } = await loadRange(actor, assetId, range, trx);
     await markRecordsQueued(trx, ids);
     await recordAudit(trx, actor, {
       action: "record.reprocess_range", subjectType: "asset", subjectId: asset.id,
-      details: { from: range.from.toISOString(), to: range.to.toISOString(), settingsVersion: settings.version, records: ids.length },
+      details: { from: range.from.toISOString(), to: range.to.toISOString(), settingsVersion: version, records: ids.length },
     });
-    return { ids, skipped: rows.length - ids.length, version: settings.version };
+    return { ids, skipped: total - ids.length, version };
   });
   for (const id of ids) await enqueueAnalysis(id, { settingsVersion: version, replaceFinished: true });
   return { settingsVersion: version, queued: ids.length, skipped };

@@ -4,7 +4,9 @@
  * keep the version they were computed with. Reprocessing (reprocess.service.ts) applies it.
  */
 import { db } from "@/lib/db/knex";
-import { ensureAnalysisSettings, insertAnalysisSettingsVersion } from "@/lib/db/repos/analysis-settings.repo";
+import {
+  ensureAnalysisSettings, insertAnalysisSettingsVersion, listAnalysisSettingsVersions,
+} from "@/lib/db/repos/analysis-settings.repo";
 import type { AnalysisSettings } from "@/lib/domain/records";
 import type { Actor } from "@/lib/domain/types";
 import { recordAudit } from "@/lib/services/audit/audit.service";
@@ -25,6 +27,26 @@ export async function getAnalysisSettings(actor: Actor, assetId: string): Promis
   assertCan(actor, "portfolio:read");
   const asset = await loadOwnAsset(actor, assetId);
   return viewOf(await ensureAnalysisSettings(db(), asset.id, DEFAULT_ANALYSIS_SETTINGS));
+}
+
+/** Versions shown on the Analysis screen [practice: enough to see a season of changes]. */
+export const SETTINGS_HISTORY_LIMIT = 20;
+
+export interface AnalysisSettingsVersionView extends AnalysisSettingsView {
+  /** Who saved it (null: the system's version 1 with the defaults). */
+  createdByName: string | null;
+}
+
+/**
+ * The asset's settings versions, newest (the current one) first, at most
+ * SETTINGS_HISTORY_LIMIT, with who saved each; version 1 is created on first read.
+ */
+export async function listAnalysisSettingsHistory(actor: Actor, assetId: string): Promise<AnalysisSettingsVersionView[]> {
+  assertCan(actor, "portfolio:read");
+  const asset = await loadOwnAsset(actor, assetId);
+  await ensureAnalysisSettings(db(), asset.id, DEFAULT_ANALYSIS_SETTINGS);
+  const rows = await listAnalysisSettingsVersions(db(), asset.id, SETTINGS_HISTORY_LIMIT);
+  return rows.map((r) => ({ ...viewOf(r), createdByName: r.createdByName }));
 }
 
 /** Save new settings as the next version (audited); returns it. Concurrent saves: one gets 'conflict'. */
