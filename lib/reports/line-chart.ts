@@ -148,7 +148,9 @@ function drawSeries(
     for (let i = 0; i < n; i++) {
       const px = xToPx(s.x[i]);
       const py = yToPx(s.y[i]);
-      if (Number.isFinite(py) && inside(px, py)) (size <= 1 ? fillRect(img, px, py, 1, 1, c) : fillDisc(img, px, py, size, c));
+      if (!Number.isFinite(py) || !inside(px, py)) continue;
+      if (size <= 1) fillRect(img, px, py, 1, 1, c);
+      else fillDisc(img, px, py, size, c);
     }
     return;
   }

@@ -49,7 +49,7 @@ describe("encodePng", () => {
     const back = PNG.sync.read(bytes);
     expect([back.width, back.height]).toEqual([37, 23]);
     const at = (x: number, y: number) => [...back.data.subarray((y * 37 + x) * 4, (y * 37 + x) * 4 + 4)];
-    expect(at(18, 11)).toEqual([255, 0, 0, 255]);
+    expect(at(18, 11)).toEqual([255, 0, 0, 255]); // pngjs decodes RGB to RGBA, alpha 255
     expect(at(18, 12)).toEqual([255, 255, 255, 255]);
   });
 });
