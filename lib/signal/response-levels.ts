@@ -1,7 +1,7 @@
 /**
- * Response levels of one record for serviceability: per channel axis (x, y, z; the sign of a
- * channel's direction is ignored), the largest peak |a|, the largest 1-second RMS and the
- * whole-record RMS over the channels on that axis, in m/s².
+ * Response levels of one record for serviceability: per channel, then per channel axis (x, y,
+ * z; the sign of a channel's direction is ignored), the largest peak |a|, the largest 1-second
+ * RMS and the whole-record RMS, in m/s².
  *
  * Each channel's mean is removed first (an accelerometer offset is not a vibration). The
  * 1-second RMS is a running RMS over windows of round(fs) samples sliding by one sample,
@@ -57,15 +57,24 @@ function channelLevel(x: ArrayLike<number>, factor: number, window: number): Cha
   return { peak, maxRms1s: Math.sqrt(Math.max(0, maxMs) / window), rms };
 }
 
+export interface ChannelResponseLevel {
+  code: string;
+  axis: ResponseAxis;
+  peakMps2: number;
+  maxRms1sMps2: number;
+  rmsMps2: number;
+}
+
 /**
- * Peak and running 1-s RMS per axis.
+ * Peak, largest running 1-s RMS and whole-record RMS of every channel whose direction is an
+ * axis (x, y, z with an optional sign); other channels are skipped.
  *
  * @param input - see {@link ResponseLevelInput}; samples in `units` ('m/s2', 'g', 'mg').
- * @returns one entry per axis present among the channels, ordered x, y, z; [] for no channels.
+ * @returns one entry per such channel, in input order, values in m/s².
  * @throws TypeError for a non-finite sample rate; RangeError for a rate ≤ 0, a channel/data
  *   count mismatch or unequal lengths.
  */
-export function computeResponseLevels(input: ResponseLevelInput): AxisResponseLevel[] {
+export function computeChannelResponseLevels(input: ResponseLevelInput): ChannelResponseLevel[] {
   assertPositive(input.sampleRateHz, "sampleRateHz");
   if (input.channels.length !== input.data.length) {
     throw new RangeError(`channels and data must have equal counts (got ${input.channels.length} ≠ ${input.data.length})`);
@@ -74,20 +83,40 @@ export function computeResponseLevels(input: ResponseLevelInput): AxisResponseLe
   if (input.data.some((d) => d.length !== n || d.length < 1)) throw new RangeError("every channel must have the same length ≥ 1");
   const factor = accelerationFactor(input.units);
   const window = Math.max(1, Math.round(input.sampleRateHz));
+  const out: ChannelResponseLevel[] = [];
+  input.channels.forEach((c, i) => {
+    const axis = c.direction.replace("-", "");
+    if (axis !== "x" && axis !== "y" && axis !== "z") return;
+    const l = channelLevel(input.data[i], factor, window);
+    out.push({ code: c.code, axis, peakMps2: l.peak, maxRms1sMps2: l.maxRms1s, rmsMps2: l.rms });
+  });
+  return out;
+}
+
+/**
+ * Per axis: the largest peak (and its channel), 1-s RMS and RMS over the channels, optionally
+ * only those in `include` (e.g. the channels an analysis kept after quality screening).
+ * @returns one entry per axis present, ordered x, y, z.
+ */
+export function aggregateResponseLevels(levels: readonly ChannelResponseLevel[], include?: ReadonlySet<string>): AxisResponseLevel[] {
   const out: AxisResponseLevel[] = [];
   for (const axis of ["x", "y", "z"] as const) {
     let best: AxisResponseLevel | null = null;
-    input.channels.forEach((c, i) => {
-      if (c.direction.replace("-", "") !== axis) return;
-      const l = channelLevel(input.data[i], factor, window);
-      if (!best) best = { axis, peakMps2: l.peak, maxRms1sMps2: l.maxRms1s, rmsMps2: l.rms, peakChannel: c.code };
+    for (const l of levels) {
+      if (l.axis !== axis || (include && !include.has(l.code))) continue;
+      if (!best) best = { axis, peakMps2: l.peakMps2, maxRms1sMps2: l.maxRms1sMps2, rmsMps2: l.rmsMps2, peakChannel: l.code };
       else {
-        if (l.peak > best.peakMps2) { best.peakMps2 = l.peak; best.peakChannel = c.code; }
-        best.maxRms1sMps2 = Math.max(best.maxRms1sMps2, l.maxRms1s);
-        best.rmsMps2 = Math.max(best.rmsMps2, l.rms);
+        if (l.peakMps2 > best.peakMps2) { best.peakMps2 = l.peakMps2; best.peakChannel = l.code; }
+        best.maxRms1sMps2 = Math.max(best.maxRms1sMps2, l.maxRms1sMps2);
+        best.rmsMps2 = Math.max(best.rmsMps2, l.rmsMps2);
       }
-    });
+    }
     if (best) out.push(best);
   }
   return out;
+}
+
+/** Per-axis levels of a record: {@link aggregateResponseLevels} of {@link computeChannelResponseLevels}. */
+export function computeResponseLevels(input: ResponseLevelInput): AxisResponseLevel[] {
+  return aggregateResponseLevels(computeChannelResponseLevels(input));
 }

@@ -17,6 +17,8 @@ import { assignModes } from "@/lib/modal/assign-modes";
 import { identifyModes, type IdentifyResult } from "@/lib/modal/identify";
 import { decimate } from "@/lib/signal/decimate";
 import { toMetresPerSecondSquared } from "@/lib/signal/units";
+import { computeChannelResponseLevels } from "@/lib/signal/response-levels"; // H5 response levels
+import { upsertResponseLevels } from "@/lib/db/repos/serviceability.repo"; // H5 response levels
 import { blobStore } from "@/lib/storage";
 import { decodeSamples } from "@/lib/services/ingest/decode";
 import { frfExtras } from "./extras";
@@ -77,6 +79,13 @@ export async function analyseRecord(
   let force = forceIdx >= 0 ? data[forceIdx] : null;
   const channels = record.channels.filter((_, i) => i !== forceIdx);
   data = data.filter((_, i) => i !== forceIdx).map((x) => toMetresPerSecondSquared(x, record.units));
+  // --- Response levels for serviceability (issue 6 §2; owner H5): per channel, before any
+  // decimation, in m/s²; the serviceability view keeps only the channels the analysis used.
+  const directionOf = new Map((await listChannelsOfAsset(db(), record.assetId)).map((c) => [c.code, c.direction as string]));
+  await upsertResponseLevels(db(), record.id, computeChannelResponseLevels({
+    sampleRateHz: record.sampleRateHz, units: "m/s2", data, channels: channels.map((code) => ({ code, direction: directionOf.get(code) ?? "" })),
+  }));
+  // --- end response levels
   let fs = record.sampleRateHz;
   const q = settings.decimationTargetHz ? Math.floor(fs / settings.decimationTargetHz) : 1;
   if (q >= 2) {

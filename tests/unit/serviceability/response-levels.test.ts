@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { computeResponseLevels } from "@/lib/signal/response-levels";
+import { aggregateResponseLevels, computeChannelResponseLevels, computeResponseLevels } from "@/lib/signal/response-levels";
 
 /** A cosine of amplitude `a`, frequency `f` Hz, `seconds` long at `fs` Hz, plus `offset`. */
 function cosine(a: number, f: number, fs: number, seconds: number, offset = 0): Float64Array {
@@ -52,5 +52,19 @@ describe("computeResponseLevels", () => {
   it("rejects mismatched channel counts and a bad rate", () => {
     expect(() => computeResponseLevels({ sampleRateHz: 50, units: "m/s2", channels: [], data: [new Float64Array(4)] })).toThrow(RangeError);
     expect(() => computeResponseLevels({ sampleRateHz: 0, units: "m/s2", channels: [], data: [] })).toThrow(RangeError);
+  });
+});
+
+describe("aggregateResponseLevels", () => {
+  it("leaves out channels not included (e.g. excluded by quality screening)", () => {
+    const channel = computeChannelResponseLevels({
+      sampleRateHz: 50, units: "m/s2",
+      channels: [{ code: "A1", direction: "z" }, { code: "A2", direction: "z" }, { code: "F1", direction: "" }],
+      data: [cosine(0.1, 1, 50, 4), cosine(0.9, 1, 50, 4), cosine(5, 1, 50, 4)],
+    });
+    expect(channel.map((c) => c.code)).toEqual(["A1", "A2"]); // F1 has no axis
+    const [z] = aggregateResponseLevels(channel, new Set(["A1"]));
+    expect(z.peakChannel).toBe("A1");
+    expect(z.peakMps2).toBeCloseTo(0.1, 12);
   });
 });
