@@ -2,6 +2,8 @@ import type { Metadata } from "next";
 import { connection } from "next/server";
 import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/config/env";
+import { getOrganisation } from "@/lib/services/accounts/profile.service";
+import { getNeedsAttention } from "@/lib/services/overview/overview.service";
 import { ButtonLink } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/panel";
 import { PortfolioView } from "./_components/portfolio/portfolio-view";
@@ -9,10 +11,15 @@ import { pageActor } from "./_lib/page-actor";
 
 export const metadata: Metadata = { title: "Portfolio" };
 
-/** Portfolio: map and asset table. The asset list itself is fetched by the client from /api/v1/assets. */
+/**
+ * Portfolio: counts by condition, filters, map, asset table and the "needs attention" list.
+ * The asset list is fetched by the client from /api/v1/assets (refreshed every minute); the
+ * needs-attention list is read here through the overview service.
+ */
 export default async function PortfolioPage() {
   await connection();
   const actor = await pageActor();
+  const [attention, organisation] = await Promise.all([getNeedsAttention(actor), getOrganisation(actor)]);
   return (
     <>
       <PageHeader
@@ -21,7 +28,7 @@ export default async function PortfolioPage() {
       >
         Every monitored asset and its current condition.
       </PageHeader>
-      <PortfolioView styleUrl={env().MAP_STYLE_URL} />
+      <PortfolioView styleUrl={env().MAP_STYLE_URL} attention={attention} timeZone={organisation.timeZone} />
     </>
   );
 }
