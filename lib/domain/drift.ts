@@ -25,7 +25,7 @@ export const ALERT_STATES = ["open", "acknowledged", "inspection_scheduled", "cl
 export type AlertState = (typeof ALERT_STATES)[number];
 export const ALERT_OUTCOMES = ["no_defect_found", "environmental_cause", "sensor_fault", "defect_found", "repaired"] as const;
 export type AlertOutcome = (typeof ALERT_OUTCOMES)[number];
-export type AlertEventKind = "raised" | "acknowledged" | "inspection_scheduled" | "assigned" | "comment" | "closed";
+export type AlertEventKind = "raised" | "acknowledged" | "inspection_scheduled" | "assigned" | "comment" | "closed" | "attachment";
 
 export interface Alert {
   id: string;

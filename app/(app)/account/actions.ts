@@ -5,6 +5,7 @@ import { defineAction } from "@/lib/http/define-action";
 import { ChangePasswordInput, CreateApiTokenInput, RevokeApiTokenInput, UpdateProfileInput } from "@/lib/services/accounts/schemas";
 import { createApiToken, revokeApiToken } from "@/lib/services/accounts/api-token.service";
 import { changePassword, updateProfile } from "@/lib/services/accounts/profile.service";
+import { UpdateNotificationPrefsInput, updateNotificationPrefs } from "@/lib/services/accounts/notification.service";
 
 export const updateProfileAction = defineAction(UpdateProfileInput, async (input, actor) => {
   await updateProfile(actor, input);
@@ -27,4 +28,10 @@ export const revokeApiTokenAction = defineAction(RevokeApiTokenInput, async (inp
   await revokeApiToken(actor, input);
   revalidatePath("/account");
   return { id: input.id };
+});
+
+export const updateNotificationPrefsAction = defineAction(UpdateNotificationPrefsInput, async (input, actor) => {
+  const prefs = await updateNotificationPrefs(actor, input);
+  revalidatePath("/account");
+  return { muted: prefs.filter((p) => p.muted).map((p) => p.assetId) };
 });

@@ -3,25 +3,28 @@ import { connection } from "next/server";
 import { listMemberships } from "@/lib/services/accounts/account.service";
 import { listApiTokens } from "@/lib/services/accounts/api-token.service";
 import { getOrganisation, getProfile } from "@/lib/services/accounts/profile.service";
+import { listNotificationPrefs } from "@/lib/services/accounts/notification.service";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { ROLE_LABELS } from "@/components/ui/format";
 import { OrganisationSwitcher } from "../_components/organisation-switcher";
 import { ChangePasswordForm } from "./_components/change-password-form";
+import { NotificationForm } from "./_components/notification-form";
 import { ProfileForm } from "./_components/profile-form";
 import { TokenSection } from "./_components/token-section";
 import { pageActor } from "../_lib/page-actor";
 
 export const metadata: Metadata = { title: "Account" };
 
-/** Account: the signed-in person's name, password, personal API tokens and organisations. */
+/** Account: the signed-in person's name, password, alert e-mails per asset, personal API tokens and organisations. */
 export default async function AccountPage() {
   await connection();
   const actor = await pageActor();
-  const [profile, tokens, memberships, organisation] = await Promise.all([
+  const [profile, tokens, memberships, organisation, notificationPrefs] = await Promise.all([
     getProfile(actor),
     listApiTokens(actor),
     listMemberships(actor.userId),
     getOrganisation(actor),
+    listNotificationPrefs(actor),
   ]);
   return (
     <>
@@ -33,6 +36,9 @@ export default async function AccountPage() {
           </Panel>
           <Panel title="Password">
             <ChangePasswordForm email={profile.email} />
+          </Panel>
+          <Panel title="Alert e-mails">
+            <NotificationForm prefs={notificationPrefs} />
           </Panel>
         </div>
         <div className="space-y-5">

@@ -111,3 +111,9 @@ export async function listMemberAddresses(db: Db, organisationId: string, roles:
       .select("u.id as userId", "u.email", "u.display_name as displayName").orderBy("u.email"),
   );
 }
+
+/** true when the asset has an alert that is not closed (an inspection is asked). */
+export async function hasLiveAlert(db: Db, assetId: string): Promise<boolean> {
+  const row = await withDbErrors(() => db("alerts").where({ asset_id: assetId }).whereNot({ state: "closed" }).first("id"));
+  return Boolean(row);
+}

@@ -4,7 +4,8 @@
  * admins work alerts (`alert:work`: acknowledge, schedule, assign an inspector, comment) and
  * close them (`alert:close`); owners only read. Every step writes an alert event and an
  * audit entry in the same transaction. A closed alert changes no more (comments excepted).
- * Closing queues a drift replay so the asset's condition follows.
+ * Closing queues a drift replay so the asset's condition follows (`alert` only while an alert
+ * is not closed: see conditionWithAlerts). E-mails skip members who muted the asset.
  */
 import { db, type Db } from "@/lib/db/knex";
 import {
@@ -21,6 +22,8 @@ import { AppError } from "@/lib/http/errors";
 import { enqueueDrift } from "@/lib/jobs/drift";
 import { recordAudit } from "@/lib/services/audit/audit.service";
 import { assertCan, assertSameOrg, isUuid } from "@/lib/services/authz";
+import { withoutMutedRecipients } from "@/lib/services/accounts/notification.service";
+import { evidenceSummaryLines, readEvidence } from "./evidence";
 import {
   ListAlertsQuery, type AssignAlertInput, type CloseAlertInput, type CommentAlertInput, type ScheduleInspectionInput,
 } from "./schemas";
@@ -98,14 +101,19 @@ export async function closeAlert(actor: Actor, alertId: string, input: CloseAler
   return closed;
 }
 
-/** Queue one e-mail per recipient (job ids keyed by alert, step and user, so a retry sends nothing twice). */
+/**
+ * Queue one e-mail per recipient who has not muted the asset (job ids keyed by alert, step
+ * and user, so a retry sends nothing twice).
+ */
 async function notify(
-  actor: Actor, alert: AlertView, what: Pick<AlertUpdateEmailData, "kind" | "outcome" | "findings">, to: { userId: string; email: string }[],
+  actor: Actor, alert: AlertView, what: Pick<AlertUpdateEmailData, "kind" | "outcome" | "findings">, recipients: { userId: string; email: string }[],
 ): Promise<void> {
+  const to = await withoutMutedRecipients(db(), alert.assetId, recipients);
   if (to.length === 0) return;
   const me = await findUserById(db(), actor.userId);
   const message = alertUpdateEmail({
     ...what, assetName: alert.assetName, raisedAt: alert.raisedAt, actorName: me?.displayName ?? "A colleague",
+    evidence: evidenceSummaryLines(readEvidence(alert.evidence)),
     link: `${env().APP_URL.replace(/\/$/, "")}/alerts/${alert.id}`,
   });
   const stamp = alert.updatedAt.getTime();

@@ -9,7 +9,7 @@
  */
 import { env } from "@/lib/config/env";
 import { db } from "@/lib/db/knex";
-import { insertAlertEvent, insertAlertIfNew, listMemberAddresses } from "@/lib/db/repos/alert.repo";
+import { hasLiveAlert, insertAlertEvent, insertAlertIfNew, listMemberAddresses } from "@/lib/db/repos/alert.repo";
 import { findAssetById, updateAssetById } from "@/lib/db/repos/asset.repo";
 import { findActiveBaseline } from "@/lib/db/repos/baseline.repo";
 import { findOrganisationById } from "@/lib/db/repos/organisation.repo";
@@ -18,6 +18,8 @@ import type { AssetCondition } from "@/lib/domain/types";
 import { alertRaisedEmail } from "@/lib/email/templates/alert-raised";
 import { enqueueMail } from "@/lib/jobs/queues";
 import { recordAudit } from "@/lib/services/audit/audit.service";
+import { withoutMutedRecipients } from "@/lib/services/accounts/notification.service";
+import { conditionWithAlerts } from "@/lib/services/alerts/condition";
 import { runDriftMonitor, type DriftMonitorResult } from "@/lib/stats/drift-monitor";
 import type { AlertEvidence } from "@/lib/stats/condition-machine";
 import { loadAssetHistory } from "./history";
@@ -62,14 +64,15 @@ export async function recomputeDrift(assetId: string, opts: { nowMs?: number } =
     }
     throw e;
   }
-  const condition = result.condition.finalState;
-  await setCondition(condition);
   const raised: { alert: Alert; evidence: AlertEvidence }[] = [];
   for (const ev of result.condition.events) {
     if (ev.type !== "alert_raised") continue;
     const alert = await raiseAlert(asset.id, asset.organisationId, baseline, ev.timeMs, ev.evidence, result);
     if (alert) raised.push({ alert, evidence: ev.evidence });
   }
+  // `alert` only while an inspection is asked (an alert not closed): PRODUCT.md, see conditionWithAlerts.
+  const condition = conditionWithAlerts(result.condition.finalState, await hasLiveAlert(db(), asset.id));
+  await setCondition(condition);
   if (raised.length > 0) await notifyRaised(asset.organisationId, asset.name, baseline, raised);
   const raisedAlertIds = raised.map((r) => r.alert.id);
   return {
@@ -127,6 +130,9 @@ async function notifyRaised(organisationId: string, assetName: string, baseline:
         };
       }),
     });
-    for (const r of recipients) await enqueueMail({ to: r.email, ...message }, { jobId: `alert-raised-${a.id}-${r.userId}` });
+    // Members who muted this asset on their Account page get no e-mail.
+    for (const r of await withoutMutedRecipients(db(), a.assetId, recipients)) {
+      await enqueueMail({ to: r.email, ...message }, { jobId: `alert-raised-${a.id}-${r.userId}` });
+    }
   }
 }

@@ -38,8 +38,12 @@ describe("alertRaisedEmail", () => {
 
 describe("alertUpdateEmail", () => {
   it("names the outcome and findings on closure, with the link and the caution", () => {
-    const m = alertUpdateEmail({ kind: "closed", assetName: "Fernbrook", raisedAt: new Date("2026-06-03T00:00:00Z"), actorName: "Ines", outcome: "no_defect_found", findings: "Nothing found.", link });
+    const m = alertUpdateEmail({ kind: "closed", assetName: "Fernbrook", raisedAt: new Date("2026-06-03T00:00:00Z"), actorName: "Ines", outcome: "no_defect_found", findings: "Nothing found.", link,
+      evidence: ["Mode 1: daily residual −0.0400 Hz, limits −0.0200 Hz to +0.0200 Hz."] });
     expect(m.subject).toBe("Alert closed: Fernbrook");
+    // The evidence summary travels in both parts (issue 5: evidence, link and caution in text and HTML).
+    expect(m.text).toContain("Mode 1: daily residual −0.0400 Hz");
+    expect(m.html).toContain("Mode 1: daily residual −0.0400 Hz");
     expect(m.text).toContain("no defect found");
     expect(m.text).toContain("Nothing found.");
     expect(m.text).toContain(link);
