@@ -39,6 +39,8 @@ export interface HistoryPoint {
   at: Date;
   trackedModeId: string | null;
   frequencyHz: number | null;
+  /** Damping ratio (fraction) of the estimate, null when none was estimated. */
+  dampingRatio: number | null;
   temperatureC: number;
   qualityPassed: boolean;
   fromRecord: boolean;
@@ -59,24 +61,24 @@ export async function listHistoryPoints(db: Db, assetId: string, range: { from?:
     .where("r.asset_id", assetId)
     .whereIn("r.status", ["analysed", "rejected"])
     .whereNotNull("r.temperature_c")
-    .select("r.id as record_id", "r.started_at as at", "r.temperature_c", "ar.verdict", "ma.tracked_mode_id", "im.frequency_hz");
+    .select("r.id as record_id", "r.started_at as at", "r.temperature_c", "ar.verdict", "ma.tracked_mode_id", "im.frequency_hz", "im.damping_ratio");
   if (range.from) recs.where("r.started_at", ">=", range.from);
   if (range.to) recs.where("r.started_at", "<", range.to);
   const imps = db("modal_estimates").where({ asset_id: assetId }).whereNotNull("temperature_c")
-    .select("at", "source", "tracked_mode_id", "frequency_hz", "temperature_c");
+    .select("at", "source", "tracked_mode_id", "frequency_hz", "damping_ratio", "temperature_c");
   if (range.from) imps.where("at", ">=", range.from);
   if (range.to) imps.where("at", "<", range.to);
   const [recRows, impRows] = await withDbErrors(() => Promise.all([
-    recs as unknown as Promise<{ record_id: string; at: Date; temperature_c: number; verdict: string; tracked_mode_id: string | null; frequency_hz: number | null }[]>,
-    imps as unknown as Promise<{ at: Date; source: string; tracked_mode_id: string; frequency_hz: number; temperature_c: number }[]>,
+    recs as unknown as Promise<{ record_id: string; at: Date; temperature_c: number; verdict: string; tracked_mode_id: string | null; frequency_hz: number | null; damping_ratio: number | null }[]>,
+    imps as unknown as Promise<{ at: Date; source: string; tracked_mode_id: string; frequency_hz: number; damping_ratio: number | null; temperature_c: number }[]>,
   ]));
   const points: HistoryPoint[] = [
     ...recRows.map((r) => ({
-      key: `r:${r.record_id}`, at: r.at, trackedModeId: r.tracked_mode_id, frequencyHz: r.frequency_hz,
+      key: `r:${r.record_id}`, at: r.at, trackedModeId: r.tracked_mode_id, frequencyHz: r.frequency_hz, dampingRatio: r.damping_ratio,
       temperatureC: r.temperature_c, qualityPassed: r.verdict !== "reject", fromRecord: true,
     })),
     ...impRows.map((r) => ({
-      key: `i:${r.at.getTime()}:${r.source}`, at: r.at, trackedModeId: r.tracked_mode_id, frequencyHz: r.frequency_hz,
+      key: `i:${r.at.getTime()}:${r.source}`, at: r.at, trackedModeId: r.tracked_mode_id, frequencyHz: r.frequency_hz, dampingRatio: r.damping_ratio,
       temperatureC: r.temperature_c, qualityPassed: true, fromRecord: false,
     })),
   ];
