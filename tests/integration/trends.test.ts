@@ -252,3 +252,13 @@ describe("trends routes", () => {
     expect(last.text.trimEnd().split("\r\n")).toHaveLength(11);
   });
 });
+
+describe("condition after the inspection", () => {
+  it("shows drift still beyond its limits as watch once every alert is closed (PRODUCT.md: alert = inspection asked)", async () => {
+    await db()("alerts").where({ asset_id: assetId }).update({ state: "closed", closed_at: new Date(), outcome: "no_defect_found" });
+    const v = await getDriftView(team.owner.actor, assetId);
+    expect(v.statisticsCondition).toBe("alert");
+    expect(v.condition).toBe("watch");
+    expect((await recomputeDrift(assetId)).condition).toBe(v.condition);
+  });
+});

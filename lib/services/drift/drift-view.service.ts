@@ -11,7 +11,10 @@
  *       series (points, daily, t2, damping); statistics always come from the whole replay;
  *     baseline: Baseline | null  — the active version;
  *     skipped: string | null     — why no statistics (no active baseline, too little data);
- *     condition: AssetCondition  — the replay's final state (the stored one when skipped);
+ *     condition: AssetCondition  — what recomputeDrift would store now: the replay's final
+ *       state, `alert` shown as `watch` when every alert is closed and the replay raises no new
+ *       one (lib/services/alerts/condition.ts); the stored condition when skipped;
+ *     statisticsCondition: AssetCondition | null — the replay's own final state;
  *     timeline: { fromMs; state }[] — condition changes of the replay (first fromMs = null);
  *     downsampled: boolean       — true when any points/damping series was thinned;
  *     modes: {
@@ -47,6 +50,7 @@ import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
 import type { AlertState, Baseline } from "@/lib/domain/drift";
 import type { Actor, AssetCondition } from "@/lib/domain/types";
 import { loadOwnAsset } from "@/lib/services/assets/asset.service";
+import { conditionWithAlerts } from "@/lib/services/alerts/condition";
 import { assertCan } from "@/lib/services/authz";
 import type { BaselineModel } from "@/lib/stats/baseline-fit";
 import { predictBaselineSeries } from "@/lib/stats/baseline-predict";
@@ -117,6 +121,7 @@ export interface DriftView {
   baseline: Baseline | null;
   skipped: string | null;
   condition: AssetCondition;
+  statisticsCondition: AssetCondition | null;
   timeline: { fromMs: number | null; state: AssetCondition }[];
   downsampled: boolean;
   modes: DriftViewMode[];
@@ -299,20 +304,24 @@ export async function getDriftView(
   const timeline = result
     ? result.condition.timeline.map((c) => ({ fromMs: Number.isFinite(c.fromMs) ? c.fromMs : null, state: c.state }))
     : [{ fromMs: null, state: asset.condition }];
+  const raisedAtMs = result ? result.condition.events.flatMap((e) => (e.type === "alert_raised" ? [e.timeMs] : [])) : [];
+  const stored = new Set(alerts.map((a) => a.raisedAt.getTime()));
+  const live = alerts.some((a) => a.state !== "closed") || raisedAtMs.some((t) => !stored.has(t));
   return {
     assetId: asset.id,
     generatedAtMs: nowMs,
     range: { fromMs, toMs },
     baseline,
     skipped,
-    condition: result ? result.condition.finalState : asset.condition,
+    condition: result ? conditionWithAlerts(result.condition.finalState, live) : asset.condition,
+    statisticsCondition: result ? result.condition.finalState : null,
     timeline,
     downsampled,
     modes,
     t2,
     t2Ucl: result?.t2Ucl ?? null,
     alerts: alerts.map((a) => ({ id: a.id, raisedAtMs: a.raisedAt.getTime(), state: a.state })),
-    raisedAtMs: result ? result.condition.events.flatMap((e) => (e.type === "alert_raised" ? [e.timeMs] : [])) : [],
+    raisedAtMs,
   };
 }
 
