@@ -82,14 +82,14 @@ export async function listChannelIssues(db: Db, organisationId: string, days: nu
          ) lr
          cross join lateral jsonb_array_elements(coalesce(lr.quality->'channels', '[]'::jsonb)) ch
          cross join lateral (
-           select count(*) as records, count(*) filter (where jsonb_exists_any(c2->'flags', array[?]::text[])) as excluded
+           select count(*) as records, count(*) filter (where jsonb_exists_any(c2->'flags', ?::text[])) as excluded
              from records r2
              join analysis_results ar2 on ar2.record_id = r2.id and ar2.settings_version = r2.analysed_settings_version
              cross join lateral jsonb_array_elements(coalesce(ar2.quality->'channels', '[]'::jsonb)) c2
             where r2.asset_id = a.id and r2.started_at >= ?::timestamptz - make_interval(days => ?) and r2.started_at <= ?
               and c2->>'channel' = ch->>'channel'
          ) rc
-        where a.organisation_id = ? and jsonb_exists_any(ch->'flags', array[?]::text[])
+        where a.organisation_id = ? and jsonb_exists_any(ch->'flags', ?::text[])
         order by a.name, channel`,
       [[...EXCLUDING_FLAGS], now, days, now, organisationId, [...EXCLUDING_FLAGS]],
     ),

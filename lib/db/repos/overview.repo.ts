@@ -92,7 +92,7 @@ export async function listChannelQualityPerDay(db: Db, assetId: string, w: DayWi
        )
        select to_char(q.day, 'YYYY-MM-DD') as day, q.channel,
               count(distinct q.record_id)::int as records,
-              count(distinct q.record_id) filter (where jsonb_exists_any(q.flags, array[?]::text[]))::int as excluded,
+              count(distinct q.record_id) filter (where jsonb_exists_any(q.flags, ?::text[]))::int as excluded,
               coalesce(array_remove(array_agg(distinct f.flag), null), '{}') as flags
          from q left join lateral jsonb_array_elements_text(q.flags) f(flag) on true
         group by q.day, q.channel

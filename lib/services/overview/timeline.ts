@@ -25,6 +25,21 @@ export function localDay(at: Date, timeZone: string): string {
   return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(at);
 }
 
+/** The instant a local day (YYYY-MM-DD) starts in a time zone (midnight, or the first instant after a DST gap). */
+export function startOfLocalDay(day: string, timeZone: string): Date {
+  const [y, m, d] = day.split("-").map(Number);
+  const guess = Date.UTC(y, m - 1, d);
+  // Offset of the zone at an instant: its wall-clock time read as UTC, minus the instant.
+  const offsetAt = (t: number) => {
+    const p = Object.fromEntries(new Intl.DateTimeFormat("en-US", {
+      timeZone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", second: "2-digit",
+    }).formatToParts(new Date(t)).map((x) => [x.type, x.value]));
+    return Date.UTC(Number(p.year), Number(p.month) - 1, Number(p.day), Number(p.hour), Number(p.minute), Number(p.second)) - t;
+  };
+  const first = guess - offsetAt(guess);
+  return new Date(guess - offsetAt(first));
+}
+
 /** The `n` local days ending with today's, oldest first. */
 export function localDays(now: Date, n: number, timeZone: string): string[] {
   const out: string[] = [];
@@ -58,4 +73,27 @@ export function buildChannelTimeline(
       }),
     };
   });
+}
+
+const FLAG_WORDS: Record<string, string> = {
+  flat_line: "flat line", clipping: "clipping", gap: "gaps", non_finite: "invalid samples",
+};
+
+/**
+ * Plain sentences for channels that are unusable now: the run of `dead` days (days without a
+ * record do not break it) that ends at the channel's latest day with data.
+ */
+export function describeChannelIssues(rows: ChannelTimelineRow[]): string[] {
+  const out: string[] = [];
+  for (const r of rows) {
+    const withData = r.cells.filter((c) => c.state !== "no_data" && c.state !== "removed");
+    let i = withData.length - 1;
+    while (i >= 0 && withData[i].state === "dead") i--;
+    const run = withData.slice(i + 1);
+    if (run.length === 0) continue;
+    const flags = [...new Set(run.flatMap((c) => c.flags))].map((f) => FLAG_WORDS[f] ?? f.replaceAll("_", " "));
+    const since = i >= 0 ? `since ${run[0].day}` : `on every day with records since ${run[0].day}`;
+    out.push(`Sensor ${r.channel} is excluded from every record ${since} (${run.length} day${run.length === 1 ? "" : "s"} with records${flags.length ? `; ${flags.join(", ")}` : ""}).`);
+  }
+  return out;
 }

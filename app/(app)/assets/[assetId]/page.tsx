@@ -3,75 +3,109 @@ import { connection } from "next/server";
 import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/config/env";
 import { toAssetSummary } from "@/lib/domain/types";
-import { getAsset, listChannels } from "@/lib/services/assets/asset.service";
-import { listGateways } from "@/lib/services/assets/gateway.service";
-import { getOrganisation } from "@/lib/services/accounts/profile.service";
-import { ButtonLink } from "@/components/ui/button";
-import { formatCoord, formatDateTime, KIND_LABELS } from "@/components/ui/format";
-import { Panel } from "@/components/ui/panel";
-import { CONDITION_STYLES } from "@/components/condition/conditions";
+import { getDriftView } from "@/lib/services/drift/drift-view.service";
+import { OVERVIEW_CAUTION } from "@/lib/services/overview/caution";
+import { describeCondition } from "@/lib/services/overview/condition-reason";
+import { AVAILABILITY_DAYS, getAssetChanges, getAssetOverview } from "@/lib/services/overview/overview.service";
+import { describeChannelIssues, localDay, startOfLocalDay } from "@/lib/services/overview/timeline";
 import { orNotFound } from "../../_lib/or-not-found";
-import { AssetLocationMap } from "./_components/asset-location-map";
 import { pageActor } from "../../_lib/page-actor";
+import { AssetLocationMap } from "./_components/asset-location-map";
+import { AvailabilityPanel } from "./_components/overview/availability-panel";
+import { ChangesPanel } from "./_components/overview/changes-panel";
+import { ConditionPanel } from "./_components/overview/condition-panel";
+import { FactsPanel } from "./_components/overview/facts-panel";
+import { GatewaysPanel, OpenAlertsPanel } from "./_components/overview/gateways-alerts";
+import { ModeTable, type ModeRow } from "./_components/overview/mode-table";
 
 export const metadata: Metadata = { title: "Asset" };
 
-function Row({ label, children }: { label: string; children: React.ReactNode }) {
-  return (
-    <div className="grid grid-cols-[10rem_1fr] gap-3 border-b border-line/70 py-2 text-sm last:border-0">
-      <dt className="text-muted">{label}</dt>
-      <dd className="min-w-0">{children}</dd>
-    </div>
-  );
-}
+const DAY_MS = 86_400_000;
+/** Default start of "what changed", days before today. */
+const CHANGES_DEFAULT_DAYS = 30;
 
-/** Asset › Overview: what the asset is, where it is, how it is instrumented. */
-export default async function AssetOverviewPage({ params }: { params: Promise<{ assetId: string }> }) {
+const isDay = (s: unknown): s is string => typeof s === "string" && /^\d{4}-\d{2}-\d{2}$/.test(s) && !Number.isNaN(Date.parse(s));
+
+/**
+ * Asset › Overview (every role): the condition and why, the caution, each tracked mode
+ * against its baseline, data availability, gateways, open alerts and what changed since a
+ * date; the facts and the location map. Drift statistics come from getDriftView.
+ */
+export default async function AssetOverviewPage({
+  params, searchParams,
+}: { params: Promise<{ assetId: string }>; searchParams: Promise<{ since?: string | string[] }> }) {
   await connection();
-  const { assetId } = await params;
+  const [{ assetId }, sp] = await Promise.all([params, searchParams]);
   const actor = await pageActor();
-  const [asset, channels, gateways, organisation] = await Promise.all([
-    orNotFound(getAsset(actor, assetId)),
-    orNotFound(listChannels(actor, assetId)),
-    orNotFound(listGateways(actor, assetId)),
-    getOrganisation(actor),
+  const now = new Date();
+  const overview = await orNotFound(getAssetOverview(actor, assetId, { now }));
+  const { asset, timeZone: tz, availability } = overview;
+  const since = isDay(sp.since) ? sp.since : localDay(new Date(now.getTime() - CHANGES_DEFAULT_DAYS * DAY_MS), tz);
+  const [view, changes] = await Promise.all([
+    orNotFound(getDriftView(actor, asset.id, {}, { maxPointsPerMode: 10, nowMs: now.getTime() })),
+    orNotFound(getAssetChanges(actor, asset.id, startOfLocalDay(since, tz))),
   ]);
-  const tz = organisation.timeZone;
-  const active = channels.filter((c) => c.active).length;
-  const liveGateways = gateways.filter((g) => !g.revokedAt);
-  const lastSeen = liveGateways.map((g) => g.lastSeenAt).filter((d): d is Date => d !== null).sort((a, b) => b.getTime() - a.getTime())[0] ?? null;
-  const summary = toAssetSummary({ ...asset, channelCount: active, openAlertCount: 0 });
+
+  const reason = describeCondition(view, {
+    condition: asset.condition, openAlerts: overview.openAlerts, lastAcceptedAt: overview.lastAcceptedAt,
+    expectedIntervalMin: asset.expectedIntervalMin, now,
+  });
+  const rates = new Map(availability.identification.map((r) => [r.trackedModeId, r]));
+  const shown = new Set(view.modes.map((m) => m.trackedModeId));
+  const modeRows: ModeRow[] = [
+    ...view.modes.map((m, j) => ({
+      number: j + 1, label: m.label, nominalHz: m.nominalHz, latest: m.latest,
+      beyond: m.daily.length > 0 && m.daily[m.daily.length - 1].beyond,
+      identified: rates.get(m.trackedModeId)?.identified ?? 0, analysed: rates.get(m.trackedModeId)?.analysed ?? 0,
+    })),
+    // Active tracked modes outside the baseline (added since the fit): identification only.
+    ...availability.identification.filter((r) => r.active && !shown.has(r.trackedModeId)).map((r, k) => ({
+      number: view.modes.length + k + 1, label: `${r.label}, not in the baseline`, nominalHz: r.nominalFrequencyHz, latest: null,
+      beyond: false, identified: r.identified, analysed: r.analysed,
+    })),
+  ];
+  const lastT2 = view.t2.length > 0 ? view.t2[view.t2.length - 1] : null;
+  const active = overview.channels.filter((c) => c.active).length;
+  const summary = toAssetSummary({ ...asset, channelCount: active, openAlertCount: overview.openAlerts.length });
 
   return (
-    <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
-      <Panel
-        title="Overview"
-        actions={can(actor.role, "asset:write") ? <ButtonLink href={`/assets/${asset.id}/edit`} size="sm">Edit asset</ButtonLink> : null}
-      >
-        <dl>
-          <Row label="Kind">{KIND_LABELS[asset.kind]}</Row>
-          <Row label={asset.kind.endsWith("bridge") ? "Main span" : "Height"}>
-            {asset.mainDimensionM === null ? "—" : `${asset.mainDimensionM} m`}
-          </Row>
-          <Row label="Material">{asset.material ?? "—"}</Row>
-          <Row label="Location">{formatCoord(asset.latitude, asset.longitude)}</Row>
-          <Row label="Condition">
-            {CONDITION_STYLES[asset.condition].label}
-            <span className="text-muted"> — {CONDITION_STYLES[asset.condition].description}</span>
-          </Row>
-          <Row label="Expected record interval">{asset.expectedIntervalMin} min</Row>
-          <Row label="Sensor channels">
-            {active} active{channels.length > active ? `, ${channels.length - active} inactive` : ""}
-          </Row>
-          <Row label="Gateways">
-            {liveGateways.length} in service · last heard {lastSeen ? formatDateTime(lastSeen, tz) : "never"}
-          </Row>
-          <Row label="Registered">{formatDateTime(asset.createdAt, tz)}</Row>
-          <Row label="Last changed">{formatDateTime(asset.updatedAt, tz)}</Row>
-        </dl>
-        <p className="mt-3 text-xs text-faint">Times in {tz}.</p>
-      </Panel>
-      <AssetLocationMap asset={summary} styleUrl={env().MAP_STYLE_URL} />
+    <div className="space-y-5" data-testid="asset-overview">
+      <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <div className="min-w-0 space-y-5">
+          <ConditionPanel
+            condition={asset.condition}
+            sentences={reason.sentences}
+            caution={OVERVIEW_CAUTION}
+            note={view.baseline ? `Baseline version ${view.baseline.version} (${view.baseline.status}), trained ${view.baseline.trainingFrom.toISOString().slice(0, 10)} to ${view.baseline.trainingTo.toISOString().slice(0, 10)}.` : null}
+          />
+          <ModeTable rows={modeRows} t2={lastT2} timeZone={tz} windowDays={AVAILABILITY_DAYS} hasBaseline={view.baseline !== null} />
+        </div>
+        <div className="min-w-0 space-y-5">
+          <FactsPanel asset={asset} canEdit={can(actor.role, "asset:write")} activeChannels={active} inactiveChannels={overview.channels.length - active} timeZone={tz} />
+          <AssetLocationMap asset={summary} styleUrl={env().MAP_STYLE_URL} />
+        </div>
+      </div>
+
+      {/* ── Serviceability slot (issue 6 §2, H5): <ServiceabilityPanel> from
+            components/serviceability/serviceability-panel.tsx goes here once it exists. ── */}
+      <div data-testid="serviceability-slot" />
+
+      <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <AvailabilityPanel
+          days={availability.days}
+          counts={availability.recordsPerDay}
+          expectedPerDay={availability.expectedPerDay}
+          channels={availability.channels}
+          issues={describeChannelIssues(availability.channels)}
+        />
+        <div className="min-w-0 space-y-5">
+          <OpenAlertsPanel alerts={overview.openAlerts} timeZone={tz} />
+          <GatewaysPanel gateways={overview.gateways} timeZone={tz} expectedIntervalMin={asset.expectedIntervalMin} now={now} />
+        </div>
+      </div>
+
+      <ChangesPanel items={changes} since={since} timeZone={tz} action={`/assets/${asset.id}`} />
+      <p className="text-xs text-faint">Times in {tz}.</p>
     </div>
   );
 }
