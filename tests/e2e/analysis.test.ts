@@ -60,6 +60,7 @@ async function waitForRecord(id: string, done: (r: RecordState) => boolean): Pro
 describe("Analysis screen", () => {
   let users: Record<string, { email: string; password: string }>;
   let recordId: string;
+  let designLabel: string;
 
   beforeAll(async () => {
     recordId = await uploadRecord();
@@ -115,11 +116,12 @@ describe("Analysis screen", () => {
     it("adds a tracked mode from a design frequency with the default ±5 % band", async () => {
       const { page } = b;
       const label = `design sway ${Date.now() % 100000}`;
+      designLabel = label;
       await page.getByRole("button", { name: "Add from a design frequency" }).click();
       const form = page.getByTestId("add-mode-form");
       await form.getByLabel("Label").fill(label);
       await form.getByRole("button", { name: "Add tracked mode" }).click();
-      await form.locator("#f-nominalFrequencyHz-error").waitFor();
+      await form.locator("#add-nominalFrequencyHz-error").waitFor();
       await form.getByLabel("Frequency (Hz)").fill("5.3");
       await form.getByRole("button", { name: "Add tracked mode" }).click();
       const row = page.locator(`[data-tracked-mode="${label}"]`);
@@ -151,6 +153,26 @@ describe("Analysis screen", () => {
       const after = await waitForRecord(recordId, (r) => r.status === "analysed" && r.analysedSettingsVersion === version + 1);
       expect(after.analysedSettingsVersion).toBe(version + 1);
     });
+
+    it("edits the design mode's band, then deactivates it", async () => {
+      const { page } = b;
+      await page.reload();
+      const row = page.locator(`[data-tracked-mode="${designLabel}"]`);
+      await row.getByRole("button", { name: "Edit" }).click();
+      const form = row.getByTestId("edit-mode-form");
+      // A band that misses the nominal frequency is refused under the band's field.
+      await form.getByLabel("Band low (Hz)").fill("5.4");
+      await form.getByRole("button", { name: "Save" }).click();
+      await form.locator("[id$=\"-bandLowHz-error\"]").waitFor();
+      await screenshot(page, "analysis-engineer-edit");
+      await form.getByLabel("Band low (Hz)").fill("5.1");
+      await form.getByLabel("Band high (Hz)").fill("5.5");
+      await form.getByRole("button", { name: "Save" }).click();
+      await page.waitForFunction((l) => document.querySelector(`[data-tracked-mode="${l}"] [data-band]`)?.textContent === "5.100–5.500 Hz", designLabel);
+      await row.getByRole("button", { name: "Deactivate" }).click();
+      await page.waitForFunction((l) => document.querySelector(`[data-tracked-mode="${l}"]`)?.getAttribute("data-active") === "false", designLabel);
+      expect(await row.getByRole("button", { name: "Reactivate" }).count()).toBe(1);
+    });
   });
 
   describe("an owner", () => {
@@ -172,6 +194,12 @@ describe("Analysis screen", () => {
       expect(await page.getByTestId("settings-form").count()).toBe(0);
       expect(await page.locator("[data-tracked-mode]").count()).toBeGreaterThan(0);
       expect(await page.getByTestId("rate-summary").count()).toBe(1);
+      // The reprocessed record sought the design mode and, simulated with modes at 2.2 and 8.8 Hz
+      // only, did not find it in its band; deactivating kept that history.
+      const design = page.locator(`[data-tracked-mode="${designLabel}"]`);
+      expect(await design.getAttribute("data-active")).toBe("false");
+      expect(await design.locator("[data-rate]").getAttribute("data-sought")).toBe("1");
+      expect(await design.locator("[data-rate]").getAttribute("data-identified")).toBe("0");
       expect(await page.getByTestId("reprocess-range").count()).toBe(0);
       expect(await page.getByTestId("add-mode").count()).toBe(0);
       expect(await page.getByRole("button", { name: /Edit|Deactivate|Reactivate|Save|Queue|Check range/ }).count()).toBe(0);

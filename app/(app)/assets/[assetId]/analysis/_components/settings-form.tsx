@@ -59,7 +59,7 @@ export function SettingsForm({ assetId, values }: { assetId: string; values: Set
       <fieldset className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         <legend className="mb-2 text-sm font-medium">Data-quality limits <span className="font-normal text-muted">(empty = default)</span></legend>
         <TextField label="Flat-line limit (s)" name="flatRunS" inputMode="decimal" defaultValue={text(values.flatRunS)} placeholder="1" errors={fieldErrors.flatRunS} hint="Longest run of identical samples accepted." />
-        <TextField label="Spike threshold (σ)" name="spikeSigma" inputMode="decimal" defaultValue={text(values.spikeSigma)} placeholder="10" errors={fieldErrors.spikeSigma} hint="In robust standard deviations." />
+        <TextField label="Spike threshold" name="spikeSigma" inputMode="decimal" defaultValue={text(values.spikeSigma)} placeholder="10" errors={fieldErrors.spikeSigma} hint="In robust standard deviations (σ)." />
         <TextField label="Minimum RMS" name="minRms" inputMode="decimal" defaultValue={text(values.minRms)} placeholder="1e-7" errors={fieldErrors.minRms} hint="Below it a channel counts as dead (record units)." />
         <TextField label="Sensor full scale" name="fullScale" inputMode="decimal" defaultValue={text(values.fullScale)} placeholder="not set" errors={fieldErrors.fullScale} hint="|a| limit for clipping (record units)." />
       </fieldset>

@@ -2,11 +2,11 @@
 
 import { useCallback, useEffect, useState } from "react";
 import { Button } from "@/components/ui/button";
-import { TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useFormAction } from "@/lib/client/use-form-action";
 import { addTrackedModeAction, editTrackedModeAction, setTrackedModeActiveAction } from "../actions";
 import type { TrackedModeRowView } from "../_lib/views";
+import { ScopedTextField } from "./scoped-field";
 
 /** A tracked mode from a design or FE frequency: label, frequency and (optionally) the search band. */
 export function AddTrackedModeForm({ assetId }: { assetId: string }) {
@@ -30,10 +30,10 @@ export function AddTrackedModeForm({ assetId }: { assetId: string }) {
     // A new key after each addition empties the inputs for the next one.
     <form key={added?.id ?? "new"} onSubmit={onSubmit} className="flex flex-wrap items-start gap-3" data-testid="add-mode-form" noValidate>
       <input type="hidden" name="assetId" value={assetId} />
-      <TextField label="Label" name="label" placeholder="e.g. first lateral sway" errors={fieldErrors.label} wrapperClassName="w-64" autoFocus />
-      <TextField label="Frequency (Hz)" name="nominalFrequencyHz" inputMode="decimal" placeholder="design / FE value" errors={fieldErrors.nominalFrequencyHz} wrapperClassName="w-40" />
-      <TextField label="Band low (Hz)" name="bandLowHz" inputMode="decimal" placeholder="−5 %" errors={fieldErrors.bandLowHz} wrapperClassName="w-32" />
-      <TextField label="Band high (Hz)" name="bandHighHz" inputMode="decimal" placeholder="+5 %" errors={fieldErrors.bandHighHz} wrapperClassName="w-32" />
+      <ScopedTextField scope="add" label="Label" name="label" placeholder="e.g. first lateral sway" errors={fieldErrors.label} wrapperClassName="w-64" autoFocus />
+      <ScopedTextField scope="add" label="Frequency (Hz)" name="nominalFrequencyHz" inputMode="decimal" placeholder="design / FE value" errors={fieldErrors.nominalFrequencyHz} wrapperClassName="w-40" />
+      <ScopedTextField scope="add" label="Band low (Hz)" name="bandLowHz" inputMode="decimal" placeholder="−5 %" errors={fieldErrors.bandLowHz} wrapperClassName="w-32" />
+      <ScopedTextField scope="add" label="Band high (Hz)" name="bandHighHz" inputMode="decimal" placeholder="+5 %" errors={fieldErrors.bandHighHz} wrapperClassName="w-32" />
       <div className="flex gap-2 pt-5">
         <Button type="submit" variant="primary" disabled={pending}>{pending ? "Adding…" : "Add tracked mode"}</Button>
         <Button variant="quiet" onClick={() => setOpen(false)}>Close</Button>
@@ -53,9 +53,9 @@ function EditTrackedModeForm({ assetId, mode, onClose }: { assetId: string; mode
     <form onSubmit={onSubmit} className="flex flex-wrap items-start justify-end gap-2" data-testid="edit-mode-form" noValidate>
       <input type="hidden" name="assetId" value={assetId} />
       <input type="hidden" name="trackedModeId" value={mode.id} />
-      <TextField label="Label" name="label" defaultValue={mode.label} errors={fieldErrors.label} wrapperClassName="w-48" autoFocus />
-      <TextField label="Band low (Hz)" name="bandLowHz" inputMode="decimal" defaultValue={String(mode.bandLowHz)} errors={fieldErrors.bandLowHz} wrapperClassName="w-28" />
-      <TextField label="Band high (Hz)" name="bandHighHz" inputMode="decimal" defaultValue={String(mode.bandHighHz)} errors={fieldErrors.bandHighHz} wrapperClassName="w-28" />
+      <ScopedTextField scope={`edit-${mode.id}`} label="Label" name="label" defaultValue={mode.label} errors={fieldErrors.label} wrapperClassName="w-48" autoFocus />
+      <ScopedTextField scope={`edit-${mode.id}`} label="Band low (Hz)" name="bandLowHz" inputMode="decimal" defaultValue={String(mode.bandLowHz)} errors={fieldErrors.bandLowHz} wrapperClassName="w-28" />
+      <ScopedTextField scope={`edit-${mode.id}`} label="Band high (Hz)" name="bandHighHz" inputMode="decimal" defaultValue={String(mode.bandHighHz)} errors={fieldErrors.bandHighHz} wrapperClassName="w-28" />
       <div className="flex gap-1 pt-5">
         <Button type="submit" variant="primary" size="sm" disabled={pending}>{pending ? "Saving…" : "Save"}</Button>
         <Button variant="quiet" size="sm" onClick={onClose}>Cancel</Button>
