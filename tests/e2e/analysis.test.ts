@@ -159,7 +159,7 @@ describe("Analysis screen", () => {
       await page.reload();
       const row = page.locator(`[data-tracked-mode="${designLabel}"]`);
       await row.getByRole("button", { name: "Edit" }).click();
-      const form = row.getByTestId("edit-mode-form");
+      const form = page.locator(`[data-edit-row="${designLabel}"]`).getByTestId("edit-mode-form");
       // A band that misses the nominal frequency is refused under the band's field.
       await form.getByLabel("Band low (Hz)").fill("5.4");
       await form.getByRole("button", { name: "Save" }).click();

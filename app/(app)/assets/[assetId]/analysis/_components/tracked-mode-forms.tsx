@@ -1,8 +1,11 @@
 "use client";
 
+import Link from "next/link";
 import { useCallback, useEffect, useState } from "react";
 import { Button } from "@/components/ui/button";
+import { formatDate } from "@/components/ui/format";
 import { Notice } from "@/components/ui/notice";
+import { Td } from "@/components/ui/table";
 import { useFormAction } from "@/lib/client/use-form-action";
 import { addTrackedModeAction, editTrackedModeAction, setTrackedModeActiveAction } from "../actions";
 import type { TrackedModeRowView } from "../_lib/views";
@@ -50,12 +53,12 @@ function EditTrackedModeForm({ assetId, mode, onClose }: { assetId: string; mode
     if (state?.ok) onClose();
   }, [state, onClose]);
   return (
-    <form onSubmit={onSubmit} className="flex flex-wrap items-start justify-end gap-2" data-testid="edit-mode-form" noValidate>
+    <form onSubmit={onSubmit} className="flex flex-wrap items-start gap-3" data-testid="edit-mode-form" noValidate>
       <input type="hidden" name="assetId" value={assetId} />
       <input type="hidden" name="trackedModeId" value={mode.id} />
-      <ScopedTextField scope={`edit-${mode.id}`} label="Label" name="label" defaultValue={mode.label} errors={fieldErrors.label} wrapperClassName="w-48" autoFocus />
-      <ScopedTextField scope={`edit-${mode.id}`} label="Band low (Hz)" name="bandLowHz" inputMode="decimal" defaultValue={String(mode.bandLowHz)} errors={fieldErrors.bandLowHz} wrapperClassName="w-28" />
-      <ScopedTextField scope={`edit-${mode.id}`} label="Band high (Hz)" name="bandHighHz" inputMode="decimal" defaultValue={String(mode.bandHighHz)} errors={fieldErrors.bandHighHz} wrapperClassName="w-28" />
+      <ScopedTextField scope={`edit-${mode.id}`} label="Label" name="label" defaultValue={mode.label} errors={fieldErrors.label} wrapperClassName="w-64" autoFocus />
+      <ScopedTextField scope={`edit-${mode.id}`} label="Band low (Hz)" name="bandLowHz" inputMode="decimal" defaultValue={String(mode.bandLowHz)} errors={fieldErrors.bandLowHz} wrapperClassName="w-32" />
+      <ScopedTextField scope={`edit-${mode.id}`} label="Band high (Hz)" name="bandHighHz" inputMode="decimal" defaultValue={String(mode.bandHighHz)} errors={fieldErrors.bandHighHz} wrapperClassName="w-32" />
       <div className="flex gap-1 pt-5">
         <Button type="submit" variant="primary" size="sm" disabled={pending}>{pending ? "Saving…" : "Save"}</Button>
         <Button variant="quiet" size="sm" onClick={onClose}>Cancel</Button>
@@ -65,24 +68,60 @@ function EditTrackedModeForm({ assetId, mode, onClose }: { assetId: string; mode
   );
 }
 
-/** Edit label and band, deactivate or reactivate: the controls of one row (engineers, admins). */
-export function TrackedModeRowControls({ assetId, mode }: { assetId: string; mode: TrackedModeRowView }) {
+const hz = (f: number) => f.toFixed(3);
+const pct = (r: number) => `${Math.round(r * 100)} %`;
+
+/**
+ * One tracked mode of the table; with `canEdit` (engineers, admins) its Edit, Deactivate and
+ * Reactivate controls, the edit form opening in a full-width row below it.
+ */
+export function TrackedModeRow({ assetId, mode: m, canEdit, timeZone }: { assetId: string; mode: TrackedModeRowView; canEdit: boolean; timeZone: string }) {
   const [editing, setEditing] = useState(false);
   const close = useCallback(() => setEditing(false), []);
   const toggle = useFormAction(setTrackedModeActiveAction, { refreshOnSuccess: true });
-  if (editing) return <EditTrackedModeForm assetId={assetId} mode={mode} onClose={close} />;
   return (
-    <div className="flex items-center justify-end gap-1">
-      {toggle.message ? <span role="alert" className="text-xs text-danger">{toggle.message}</span> : null}
-      <Button variant="quiet" size="sm" onClick={() => setEditing(true)}>Edit</Button>
-      <form onSubmit={toggle.onSubmit}>
-        <input type="hidden" name="assetId" value={assetId} />
-        <input type="hidden" name="trackedModeId" value={mode.id} />
-        <input type="hidden" name="active" value={mode.active ? "false" : "true"} />
-        <Button type="submit" variant={mode.active ? "danger" : "secondary"} size="sm" disabled={toggle.pending}>
-          {toggle.pending ? "Saving…" : mode.active ? "Deactivate" : "Reactivate"}
-        </Button>
-      </form>
-    </div>
+    <>
+      <tr data-tracked-mode={m.label} data-active={m.active} className={m.active ? undefined : "text-muted"}>
+        <Td className="font-medium">{m.label}</Td>
+        <Td className="whitespace-nowrap text-right tabular-nums">{hz(m.nominalFrequencyHz)} Hz</Td>
+        <Td className="whitespace-nowrap tabular-nums" data-band>{hz(m.bandLowHz)}–{hz(m.bandHighHz)} Hz</Td>
+        <Td>
+          {m.source.kind === "record" ? (
+            <Link href={`/assets/${assetId}/records/${m.source.recordId}`} className="text-accent hover:underline">Record peak #{m.source.modeIndex + 1}</Link>
+          ) : "Design / FE entry"}
+        </Td>
+        <Td>{m.hasReferenceShape ? "Reference shape" : <span className="text-muted">Band only</span>}</Td>
+        <Td>{m.active ? "Active" : "Inactive"}</Td>
+        <Td className="text-right tabular-nums" data-rate={m.rate ?? ""} data-identified={m.identified} data-sought={m.sought}>
+          {m.rate === null ? <span className="text-muted">not sought</span> : <strong>{pct(m.rate)}</strong>}
+          <span className="block whitespace-nowrap text-xs text-muted">{m.identified} of {m.sought}</span>
+          {m.notSought ? <span className="block whitespace-nowrap text-xs text-faint">not sought in {m.notSought}</span> : null}
+        </Td>
+        <Td className="whitespace-nowrap">{formatDate(m.lastIdentifiedAt, timeZone)}</Td>
+        {canEdit ? (
+          <Td className="text-right">
+            <div className="flex items-center justify-end gap-1">
+              {toggle.message ? <span role="alert" className="text-xs text-danger">{toggle.message}</span> : null}
+              <Button variant="quiet" size="sm" onClick={() => setEditing(true)} disabled={editing}>Edit</Button>
+              <form onSubmit={toggle.onSubmit}>
+                <input type="hidden" name="assetId" value={assetId} />
+                <input type="hidden" name="trackedModeId" value={m.id} />
+                <input type="hidden" name="active" value={m.active ? "false" : "true"} />
+                <Button type="submit" variant={m.active ? "danger" : "secondary"} size="sm" disabled={toggle.pending}>
+                  {toggle.pending ? "Saving…" : m.active ? "Deactivate" : "Reactivate"}
+                </Button>
+              </form>
+            </div>
+          </Td>
+        ) : null}
+      </tr>
+      {canEdit && editing ? (
+        <tr data-edit-row={m.label}>
+          <Td colSpan={9} className="bg-sunken">
+            <EditTrackedModeForm assetId={assetId} mode={m} onClose={close} />
+          </Td>
+        </tr>
+      ) : null}
+    </>
   );
 }

@@ -2,13 +2,9 @@ import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
 import { cx } from "@/components/ui/cx";
 import { inputClass } from "@/components/ui/field";
-import { formatDate } from "@/components/ui/format";
-import { Table, Td, Th } from "@/components/ui/table";
+import { Table, Th } from "@/components/ui/table";
 import type { RatePeriod, TrackedModeRowView } from "../_lib/views";
-import { AddTrackedModeForm, TrackedModeRowControls } from "./tracked-mode-forms";
-
-const hz = (f: number) => f.toFixed(3);
-const pct = (r: number) => `${Math.round(r * 100)} %`;
+import { AddTrackedModeForm, TrackedModeRow } from "./tracked-mode-forms";
 
 interface Summary { analysedRecords: number; unassignedModes: number; recordsWithUnassigned: number }
 
@@ -55,28 +51,7 @@ export function TrackedModesTable({ assetId, rows, canEdit, timeZone, period, su
             </tr>
           </thead>
           <tbody>
-            {rows.map((m) => (
-              <tr key={m.id} data-tracked-mode={m.label} data-active={m.active} className={m.active ? undefined : "text-muted"}>
-                <Td className="font-medium">{m.label}</Td>
-                <Td className="text-right tabular-nums">{hz(m.nominalFrequencyHz)} Hz</Td>
-                <Td className="whitespace-nowrap tabular-nums" data-band>{hz(m.bandLowHz)}–{hz(m.bandHighHz)} Hz</Td>
-                <Td>
-                  {m.source.kind === "record" ? (
-                    <Link href={`/assets/${assetId}/records/${m.source.recordId}`} className="text-accent hover:underline">Record peak #{m.source.modeIndex + 1}</Link>
-                  ) : "Design / FE entry"}
-                </Td>
-                <Td>{m.hasReferenceShape ? "Reference shape" : <span className="text-muted">Band only</span>}</Td>
-                <Td>{m.active ? "Active" : "Inactive"}</Td>
-                <Td className="text-right tabular-nums" data-rate={m.rate ?? ""} data-identified={m.identified} data-sought={m.sought}>
-                  {m.rate === null ? <span className="text-muted">not sought</span> : <strong>{pct(m.rate)}</strong>}
-                  <span className="block text-xs text-muted">
-                    {m.identified} of {m.sought}{m.notSought ? ` · not sought in ${m.notSought}` : ""}
-                  </span>
-                </Td>
-                <Td className="whitespace-nowrap">{formatDate(m.lastIdentifiedAt, timeZone)}</Td>
-                {canEdit ? <Td className="text-right"><TrackedModeRowControls assetId={assetId} mode={m} /></Td> : null}
-              </tr>
-            ))}
+            {rows.map((m) => <TrackedModeRow key={m.id} assetId={assetId} mode={m} canEdit={canEdit} timeZone={timeZone} />)}
           </tbody>
         </Table>
       )}
