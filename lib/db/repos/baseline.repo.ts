@@ -45,3 +45,11 @@ export async function insertActiveBaseline(
   );
   return { baseline: toBaseline(row as BaselineRow), superseded: prev.length ? (prev[0] as { version: number }).version : null };
 }
+
+/** Display names of the users who fitted the asset's baseline versions: baseline id → name. */
+export async function listBaselineAuthorNames(db: Db, assetId: string): Promise<Map<string, string>> {
+  const rows = await withDbErrors(() =>
+    db("baselines as b").join("users as u", "u.id", "b.created_by").where("b.asset_id", assetId).select("b.id", "u.display_name"),
+  );
+  return new Map((rows as { id: string; display_name: string }[]).map((r) => [r.id, r.display_name]));
+}

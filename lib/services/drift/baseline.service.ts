@@ -6,7 +6,7 @@
  * (superseded) for comparison. Audited; the drift replay is queued afterwards.
  */
 import { db } from "@/lib/db/knex";
-import { insertActiveBaseline, listBaselinesOfAsset } from "@/lib/db/repos/baseline.repo";
+import { insertActiveBaseline, listBaselineAuthorNames, listBaselinesOfAsset } from "@/lib/db/repos/baseline.repo";
 import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
 import type { Baseline, BaselineModeModel } from "@/lib/domain/drift";
 import type { Actor } from "@/lib/domain/types";
@@ -27,6 +27,14 @@ export async function listBaselines(actor: Actor, assetId: string): Promise<Base
   assertCan(actor, "portfolio:read");
   const asset = await loadOwnAsset(actor, assetId);
   return listBaselinesOfAsset(db(), asset.id);
+}
+
+/** Versions newest first with the display name of who fitted each (null: the system or a removed user). */
+export async function listBaselineVersions(actor: Actor, assetId: string): Promise<(Baseline & { createdByName: string | null })[]> {
+  assertCan(actor, "portfolio:read");
+  const asset = await loadOwnAsset(actor, assetId);
+  const [versions, names] = await Promise.all([listBaselinesOfAsset(db(), asset.id), listBaselineAuthorNames(db(), asset.id)]);
+  return versions.map((b) => ({ ...b, createdByName: names.get(b.id) ?? null }));
 }
 
 /**
