@@ -40,12 +40,12 @@ export function renderReportCharts(r: AssetReport): ReportChart[] {
         width: W, height: H, xRange,
         series: [
           { kind: "dots", x: pts.map((p) => p.atMs), y: pts.map((p) => p.frequencyHz), colour: CHART_COLOURS.measured, size: 2 },
-          { kind: "line", x: pts.map((p) => p.atMs), y: pts.map((p) => p.predictedHz ?? Number.NaN), colour: CHART_COLOURS.predicted, size: 2, dashed: true },
+          { kind: "line", x: pts.map((p) => p.atMs), y: pts.map((p) => p.predictedHz ?? Number.NaN), colour: CHART_COLOURS.predicted, size: 1 },
         ],
       });
       out.push({
         trackedModeId: m.trackedModeId, kind: "frequency", title: `${m.label}: identified frequency (Hz)`,
-        caption: "Dots: frequency identified in each accepted record (Hz). Dashed grey: value expected by the baseline for the measured temperature.",
+        caption: "Dots: frequency identified in each accepted record (Hz). Grey line: value expected by the baseline for the measured temperature.",
         png: encodePng(chart.raster), width: W, height: H,
       });
     }

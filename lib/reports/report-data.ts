@@ -26,8 +26,12 @@ export interface ReportMode {
   accepted: number;
   /** identified / accepted, or null without accepted rows. */
   identificationRate: number | null;
-  /** Latest residual after compensation, % of the nominal frequency. */
-  latestResidualPct: number | null;
+  /**
+   * Sustained change at the end of the period: the last daily EWMA of the residual after
+   * temperature compensation, less its in-control centre, as % of the nominal frequency
+   * (the same terms as minimalShift, so the two compare).
+   */
+  sustainedChangePct: number | null;
   /** Smallest sustained shift the EWMA detects (ARL ≈ 500 design). */
   minimalShift: { shiftHz: number; shiftPct: number } | null;
   /** Baseline fit of this mode, if any. */

@@ -52,6 +52,8 @@ function summaryPart(doc: Pdf, r: AssetReport): void {
 }
 
 function chartsPart(doc: Pdf, charts: ReportChart[]): void {
+  // Keep the heading with the first chart.
+  ensureSpace(doc, charts.length ? (contentWidth(doc) * charts[0].height) / charts[0].width + 90 : 60);
   heading(doc, "Trends", 12);
   if (charts.length === 0) paragraph(doc, "No identified frequencies in this period: nothing to draw.", { colour: MUTED });
   const w = contentWidth(doc);
@@ -73,8 +75,9 @@ function annex(doc: Pdf, r: AssetReport, charts: ReportChart[]): void {
   heading(doc, "Tracked modes", 12);
   if (r.modes.length === 0) paragraph(doc, "No tracked modes.", { colour: MUTED });
   else table(doc, MODAL_COLUMNS.map((t, i) => ({ title: t, width: [70, 50, 50, 50, 55, 70, 58, 80][i], align: i === 0 ? "left" as const : "right" as const })), modalRows(r));
-  paragraph(doc, "Identified: accepted records or imported rows of the period in which the mode was found. Smallest detectable change: the smallest sustained "
-    + "frequency shift the EWMA chart confirms with an in-control average run length of about 500 days (Lucas & Saccucci, 1990).", { size: 8, colour: MUTED });
+  paragraph(doc, "Identified: accepted records or imported rows of the period in which the mode was found. Sustained change: the last daily EWMA of the residual "
+    + "after temperature compensation, as % of the nominal frequency. Smallest detectable change: the smallest sustained frequency shift the EWMA "
+    + "chart confirms with an in-control average run length of about 500 days (Lucas & Saccucci, 1990).", { size: 8, colour: MUTED });
   heading(doc, "Baseline", 12);
   paragraph(doc, baselineLine(r));
   const fits = fitRows(r);

@@ -9,7 +9,7 @@ const num = (v: number | null, d: number, unit = "") => (v === null || !Number.i
 const signed = (v: number | null, d: number, unit = "") => (v === null || !Number.isFinite(v) ? "-" : `${v >= 0 ? "+" : "-"}${Math.abs(v).toFixed(d)}${unit}`);
 
 export const MODAL_COLUMNS = [
-  "Mode", "Nominal (Hz)", "Latest (Hz)", "Median (Hz)", "Median damping", "Identified", "Latest residual", "Smallest detectable change",
+  "Mode", "Nominal (Hz)", "Latest (Hz)", "Median (Hz)", "Median damping", "Identified", "Sustained change (EWMA)", "Smallest detectable change",
 ] as const;
 
 export function modalRows(r: AssetReport): string[][] {
@@ -20,7 +20,7 @@ export function modalRows(r: AssetReport): string[][] {
     num(m.medianHz, 3),
     m.medianDampingRatio === null ? "-" : `${(m.medianDampingRatio * 100).toFixed(2)} %`,
     m.identificationRate === null ? "-" : `${Math.round(m.identificationRate * 100)} % (${m.identified}/${m.accepted})`,
-    signed(m.latestResidualPct, 2, " %"),
+    signed(m.sustainedChangePct, 2, " %"),
     m.minimalShift ? `${m.minimalShift.shiftHz.toFixed(4)} Hz (${m.minimalShift.shiftPct.toFixed(2)} %)` : "-",
   ]);
 }

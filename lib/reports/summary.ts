@@ -65,10 +65,10 @@ export function describeAlert(a: ReportAlert): string {
 /** The summary (see the file header). */
 export function summariseReport(r: AssetReport): ReportSummary {
   const found: string[] = [];
-  const moved = r.modes.filter((m) => m.latestResidualPct !== null && m.minimalShift !== null && Math.abs(m.latestResidualPct) >= m.minimalShift.shiftPct);
+  const moved = r.modes.filter((m) => m.sustainedChangePct !== null && m.minimalShift !== null && Math.abs(m.sustainedChangePct) >= m.minimalShift.shiftPct);
   for (const m of moved) {
-    const dir = (m.latestResidualPct ?? 0) < 0 ? "lower" : "higher";
-    found.push(`${m.label} vibrates ${Math.abs(m.latestResidualPct ?? 0).toFixed(2)} % ${dir === "lower" ? "below" : "above"} its expected frequency for the temperature, `
+    const dir = (m.sustainedChangePct ?? 0) < 0 ? "lower" : "higher";
+    found.push(`${m.label} has vibrated ${Math.abs(m.sustainedChangePct ?? 0).toFixed(2)} % ${dir === "lower" ? "below" : "above"} its expected frequency for the temperature over recent days, `
       + `more than the smallest change the monitoring can confirm (${m.minimalShift?.shiftPct.toFixed(2)} %).`
       + (dir === "lower" ? " A lower frequency can mean a loss of stiffness, or an environmental or sensor effect." : ""));
   }

@@ -26,7 +26,7 @@ import { fitAndActivateBaseline } from "@/lib/services/drift/baseline.service";
 import { recomputeDrift } from "@/lib/services/drift/drift.service";
 import { importModalHistory } from "@/lib/services/drift/history-import.service";
 import { sendMonthlyReports } from "@/lib/services/reports/monthly.service";
-import { renderAssetReport } from "@/lib/services/reports/report.service";
+import { renderAssetReport } from "@/lib/services/reports/report-pdf.service";
 import { simulateDriftHistory } from "@/lib/stats/drift-simulation";
 import { caughtMails, clearMails, waitForMail } from "@/tests/helpers/mail";
 import { createMailWorker } from "@/workers/mail.worker";

@@ -13,7 +13,8 @@ import type { Actor } from "@/lib/domain/types";
 import { monthlyReportEmail } from "@/lib/email/templates/monthly-report";
 import { summariseReport } from "@/lib/reports/summary";
 import { enqueueMailWithAttachments } from "./report-mail";
-import { previousMonth, renderAssetReport, type ReportPeriod } from "./report.service";
+import { renderAssetReport } from "./report-pdf.service";
+import { previousMonth, type ReportPeriod } from "./report.service";
 
 export interface MonthlyRunOutcome {
   month: string;

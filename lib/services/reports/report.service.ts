@@ -15,9 +15,7 @@ import type { Alert } from "@/lib/domain/drift";
 import type { Actor, Asset, AssetCondition } from "@/lib/domain/types";
 import { AppError } from "@/lib/http/errors";
 import { REPORT_CAUTION } from "@/lib/reports/caution";
-import { renderReportCharts, type ReportChart } from "@/lib/reports/report-charts";
 import type { AssetReport, ReportAlert, ReportAvailability, ReportMode } from "@/lib/reports/report-data";
-import { renderReportPdf } from "@/lib/reports/report-pdf";
 import { loadOwnAsset } from "@/lib/services/assets/asset.service";
 import { assertCan } from "@/lib/services/authz";
 import { getDriftView, type DriftView, type DriftViewMode } from "@/lib/services/drift/drift-view.service";
@@ -80,14 +78,15 @@ async function countRows(assetId: string, p: ReportPeriod, expectedIntervalMin: 
 
 function reportMode(m: DriftViewMode, identified: number, accepted: number): ReportMode {
   const pts = m.points;
-  const last = [...pts].reverse().find((p) => p.predictedHz !== null && p.residualHz !== null) ?? null;
+  const lastDay = m.daily.length ? m.daily[m.daily.length - 1] : null;
+  const centre = lastDay ? (lastDay.ewmaLcl + lastDay.ewmaUcl) / 2 : Number.NaN;
   const damping = m.damping.points.map((p) => p.dampingRatio);
   return {
     trackedModeId: m.trackedModeId, label: m.label, nominalHz: m.nominalHz,
     latestHz: pts.length ? pts[pts.length - 1].frequencyHz : null, latestAtMs: pts.length ? pts[pts.length - 1].atMs : null,
     medianHz: median(pts.map((p) => p.frequencyHz)), medianDampingRatio: median(damping),
     identified, accepted, identificationRate: accepted > 0 ? identified / accepted : null,
-    latestResidualPct: last && last.predictedHz ? (100 * (last.residualHz ?? 0)) / last.predictedHz : null,
+    sustainedChangePct: lastDay && Number.isFinite(centre) && m.nominalHz > 0 ? (100 * (lastDay.ewma - centre)) / m.nominalHz : null,
     minimalShift: m.minimalShift,
     fit: m.model ? {
       kind: m.model.kind, residualStdHz: m.model.residualStdHz, n: m.model.n, slopeHzPerC: m.model.slopeHzPerC,
@@ -160,21 +159,4 @@ export async function getAssetReport(actor: Actor, assetId: string, period: Repo
     caution: REPORT_CAUTION,
     link: `${base}/assets/${asset.id}`,
   };
-}
-
-export interface RenderedReport { report: AssetReport; charts: ReportChart[]; pdf: Buffer; filename: string }
-
-/** The report and its PDF; the file name carries the asset and the period. */
-export async function renderAssetReport(actor: Actor, assetId: string, period: ReportPeriod, opts: { nowMs?: number } = {}): Promise<RenderedReport> {
-  const report = await getAssetReport(actor, assetId, period, opts);
-  const charts = renderReportCharts(report);
-  const pdf = await renderReportPdf(report, charts);
-  return { report, charts, pdf, filename: reportFilename(report) };
-}
-
-/** "heron-reach-footbridge-2026-10-01-2026-10-31.pdf" (ASCII, safe in a header). */
-export function reportFilename(r: AssetReport, ext = "pdf"): string {
-  const slug = r.asset.name.normalize("NFKD").replace(/[^A-Za-z0-9]+/g, "-").replace(/^-|-$/g, "").toLowerCase() || "asset";
-  const day = (ms: number) => new Date(ms).toISOString().slice(0, 10);
-  return `${slug}-${day(r.period.fromMs)}-${day(r.period.toMs - 1)}.${ext}`;
 }

@@ -24,7 +24,7 @@ export function fixtureReport(): AssetReport {
     driftSkipped: null,
     modes: [{
       trackedModeId: "m1", label: "V1", nominalHz: 2.4, latestHz: 2.352, latestAtMs: to - DAY, medianHz: 2.4, medianDampingRatio: 0.012,
-      identified: 118, accepted: 124, identificationRate: 118 / 124, latestResidualPct: -2, minimalShift: { shiftHz: 0.006, shiftPct: 0.25 },
+      identified: 118, accepted: 124, identificationRate: 118 / 124, sustainedChangePct: -2, minimalShift: { shiftHz: 0.006, shiftPct: 0.25 },
       fit: { kind: "linear", residualStdHz: 0.004, n: 1200, slopeHzPerC: -0.0021, temperatureRangeC: [-8, 31] },
       series: { points, daily },
     }],

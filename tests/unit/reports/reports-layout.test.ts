@@ -15,7 +15,7 @@ describe("summariseReport", () => {
   it("names the condition, the mode that moved beyond the detectable change and the open alert", () => {
     const s = summariseReport(fixtureReport());
     expect(s.conditionWord).toBe("Alert");
-    expect(s.found.join(" ")).toMatch(/V1 vibrates 2\.00 % below its expected frequency/);
+    expect(s.found.join(" ")).toMatch(/V1 has vibrated 2\.00 % below its expected frequency/);
     expect(s.done).toHaveLength(1);
     expect(s.done[0]).toMatch(/^Alert raised on \d{4}-\d{2}-\d{2} \(V1\): open, not yet acknowledged\.$/);
   });
@@ -23,7 +23,7 @@ describe("summariseReport", () => {
   it("says no mode moved when every residual is inside the smallest detectable change", () => {
     const r = fixtureReport();
     r.asset.condition = "steady";
-    r.modes[0].latestResidualPct = 0.1; // below the 0.25 % minimal shift of the fixture
+    r.modes[0].sustainedChangePct = 0.1; // below the 0.25 % minimal shift of the fixture
     r.alerts = [];
     const s = summariseReport(r);
     expect(s.found).toContain("No tracked mode moved by more than the smallest change the monitoring can confirm.");

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { defineRoute, json } from "@/lib/http/define-route";
-import { defaultPeriod, renderAssetReport, getAssetReport } from "@/lib/services/reports/report.service";
+import { renderAssetReport } from "@/lib/services/reports/report-pdf.service";
+import { defaultPeriod, getAssetReport } from "@/lib/services/reports/report.service";
 import { ReportQuery } from "@/lib/services/reports/schemas";
 
 export const dynamic = "force-dynamic";
