@@ -71,22 +71,62 @@ export function decodeSamples(bytes: Uint8Array, format: DataFormat, channels: s
   return out;
 }
 
-function decodeFloat32(bytes: Uint8Array, nch: number): DecodedSamples {
+/**
+ * Check uploaded (already inflated) bytes as {@link decodeSamples} would, with the same
+ * errors, and return the samples per channel. For float32 data this reads the bit patterns
+ * in place (an exponent of all ones is ±Infinity or NaN, IEEE 754 §3.4) instead of decoding
+ * millions of values the upload does not need; CSV has to be parsed to be checked.
+ * @throws AppError 422 naming the rule.
+ */
+export function checkSamples(bytes: Uint8Array, format: DataFormat, channels: string[]): number {
+  const n = format === "csv" ? decodeCsv(bytes, channels).sampleCount : checkFloat32(bytes, channels.length);
+  if (n < MIN_SAMPLES) {
+    throw invalid(`The record has ${n} samples per channel; at least ${MIN_SAMPLES} are needed.`, "too_short", { samples: n, minSamples: MIN_SAMPLES });
+  }
+  return n;
+}
+
+const EXPONENT_MASK = 0x7f800000;
+
+function checkFloat32(bytes: Uint8Array, nch: number): number {
+  const n = float32Frames(bytes, nch);
+  const count = n * nch;
+  let bad = -1;
+  if (bytes.byteOffset % 4 === 0 && isLittleEndianHost) {
+    const words = new Uint32Array(bytes.buffer, bytes.byteOffset, count);
+    for (let i = 0; i < count; i++) if ((words[i] & EXPONENT_MASK) === EXPONENT_MASK) { bad = i; break; }
+  } else {
+    const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+    for (let i = 0; i < count; i++) if ((view.getUint32(4 * i, true) & EXPONENT_MASK) === EXPONENT_MASK) { bad = i; break; }
+  }
+  if (bad >= 0) throw nonFinite(Math.floor(bad / nch), bad % nch);
+  return n;
+}
+
+const isLittleEndianHost = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
+
+const nonFinite = (k: number, c: number) =>
+  invalid(`Sample ${k + 1} of channel ${c + 1} is not a finite number.`, "non_finite", { sample: k + 1, channelIndex: c });
+
+/** Whole samples (frames of `nch` float32 values) in `bytes`, or 422 ragged_rows. */
+function float32Frames(bytes: Uint8Array, nch: number): number {
   const frame = 4 * nch;
   if (bytes.length === 0 || bytes.length % frame !== 0) {
     throw invalid(`The float32 data has ${bytes.length} bytes, not a whole number of ${nch}-channel samples (${frame} bytes each).`, "ragged_rows", {
       bytes: bytes.length, bytesPerSample: frame,
     });
   }
-  const n = bytes.length / frame;
+  return bytes.length / frame;
+}
+
+function decodeFloat32(bytes: Uint8Array, nch: number): DecodedSamples {
+  const n = float32Frames(bytes, nch);
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const data = Array.from({ length: nch }, () => new Float64Array(n));
   for (let k = 0, o = 0; k < n; k++) {
     for (let c = 0; c < nch; c++, o += 4) {
       const v = view.getFloat32(o, true);
-      if (!Number.isFinite(v)) {
-        throw invalid(`Sample ${k + 1} of channel ${c + 1} is not a finite number.`, "non_finite", { sample: k + 1, channelIndex: c });
-      }
+      if (!Number.isFinite(v)) throw nonFinite(k, c);
       data[c][k] = v;
     }
   }

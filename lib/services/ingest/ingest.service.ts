@@ -10,13 +10,14 @@ import { db } from "@/lib/db/knex";
 import { countRecordsWithBlob, findRecordByGatewayRecordId, insertRecord, updateRecordStatus } from "@/lib/db/repos/record.repo";
 import { listChannelsOfAsset } from "@/lib/db/repos/sensor-channel.repo";
 import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
-import type { VibrationRecord } from "@/lib/domain/records";
+import type { TrackedMode, VibrationRecord } from "@/lib/domain/records";
+import type { SensorChannel } from "@/lib/domain/types";
 import { AppError, isAppError } from "@/lib/http/errors";
 import { fieldErrorsOf } from "@/lib/http/validation";
 import { enqueueAnalysis } from "@/lib/jobs/analysis";
-import { blobStore, contentKey, sha256Hex } from "@/lib/storage";
+import { blobStore, contentKey, sha256HexAsync } from "@/lib/storage";
 import type { DeviceActor } from "@/lib/services/assets/gateway.service";
-import { dataFormatOf, decodeSamples, inflateIfGzip } from "./decode";
+import { checkSamples, dataFormatOf, inflateIfGzip } from "./decode";
 import { readUploadParts } from "./multipart";
 import { consumeUploadAllowance } from "./rate-limit";
 import { UploadRecordMeta } from "./schemas";
@@ -59,14 +60,22 @@ export async function ingestRecord(device: DeviceActor, req: UploadRequest): Pro
     });
   }
   const meta = parsed.data;
-  await assertChannelsConfigured(device.assetId, meta.channels);
-  const bytes = await inflateIfGzip(parts.data.bytes, format, e.UPLOAD_MAX_DECODED_BYTES);
-  const decoded = decodeSamples(bytes, format, meta.channels);
-  const durationS = decoded.sampleCount / meta.sampleRateHz;
-  await assertLongEnough(device.assetId, durationS);
+  // The lookups and the inflate (zlib's thread pool) run together; their outcomes are still
+  // checked one by one in the contract's order, so every answer is what a sequential check gives.
+  const channels = quiet(listChannelsOfAsset(db(), device.assetId));
+  const tracked = quiet(listTrackedModesOfAsset(db(), device.assetId));
+  const previous = quiet(findRecordByGatewayRecordId(db(), device.gatewayId, meta.recordId));
+  const inflated = quiet(inflateIfGzip(parts.data.bytes, format, e.UPLOAD_MAX_DECODED_BYTES));
+  assertChannelsConfigured(await channels, meta.channels);
+  const bytes = await inflated;
+  // SHA-256 on the thread pool (WebCrypto) while this thread checks the samples.
+  const hashing = quiet(sha256HexAsync(bytes));
+  const sampleCount = checkSamples(bytes, format, meta.channels);
+  const durationS = sampleCount / meta.sampleRateHz;
+  assertLongEnough(await tracked, durationS);
 
-  const hash = sha256Hex(bytes);
-  const existing = await findRecordByGatewayRecordId(db(), device.gatewayId, meta.recordId);
+  const hash = await hashing;
+  const existing = await previous;
   if (existing) return sameOrConflict(existing, hash);
 
   const blobKey = contentKey(hash);
@@ -77,7 +86,7 @@ export async function ingestRecord(device: DeviceActor, req: UploadRequest): Pro
         organisationId: device.organisationId, assetId: device.assetId, gatewayId: device.gatewayId,
         gatewayRecordId: meta.recordId, startedAt: new Date(meta.startedAt), sampleRateHz: meta.sampleRateHz,
         channels: meta.channels, units: meta.units, temperatureC: meta.temperatureC, environment: meta.environment ?? {},
-        contentHash: hash, blobKey, dataFormat: format, byteSize: bytes.length, sampleCount: decoded.sampleCount, durationS,
+        contentHash: hash, blobKey, dataFormat: format, byteSize: bytes.length, sampleCount, durationS,
       });
       // The blob is written before the commit: a failed write rolls the row back.
       await blobStore().put(blobKey, bytes);
@@ -128,8 +137,8 @@ function parseMetaJson(text: string): unknown {
  * Every code must be an active channel of the asset: accelerometers, plus at most one force
  * channel (a forced test: the analysis leaves it out of the identification and computes FRFs).
  */
-async function assertChannelsConfigured(assetId: string, codes: string[]): Promise<void> {
-  const active = (await listChannelsOfAsset(db(), assetId)).filter((c) => c.active);
+function assertChannelsConfigured(assetChannels: SensorChannel[], codes: string[]): void {
+  const active = assetChannels.filter((c) => c.active);
   const configured = new Set(active.map((c) => c.code));
   const forceCodes = new Set(active.filter((c) => c.quantity === "force").map((c) => c.code));
   const unknown = codes.filter((c) => !configured.has(c));
@@ -142,8 +151,7 @@ async function assertChannelsConfigured(assetId: string, codes: string[]): Promi
   if (forces.length === codes.length) throw refuse("acceleration_channels", "A record needs at least one acceleration channel.", { forces });
 }
 
-async function assertLongEnough(assetId: string, durationS: number): Promise<void> {
-  const tracked = await listTrackedModesOfAsset(db(), assetId);
+function assertLongEnough(tracked: TrackedMode[], durationS: number): void {
   if (tracked.length === 0) return;
   const lowestHz = Math.min(...tracked.map((t) => t.bandLowHz));
   const neededS = MIN_PERIODS_OF_LOWEST_MODE / lowestHz;
@@ -153,6 +161,12 @@ async function assertLongEnough(assetId: string, durationS: number): Promise<voi
       details: { field: "data", rule: "too_short", durationS, minDurationS: neededS }, fieldErrors: { data: [message] },
     });
   }
+}
+
+/** Mark a promise's rejection as handled now; awaiting it later still throws. */
+function quiet<T>(p: Promise<T>): Promise<T> {
+  p.catch(() => undefined);
+  return p;
 }
 
 function prefix(p: string, errors: Record<string, string[]>): Record<string, string[]> {

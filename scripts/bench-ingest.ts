@@ -1,0 +1,318 @@
+/**
+ * npm run bench:ingest — the gateway-to-result pipeline on a throw-away stack of its own
+ * (`node scripts/test.mjs --services`: PostgreSQL and Redis on the TEST_* ports, a temp
+ * folder, all stopped at the end; `--use-env` uses the stack the environment names instead):
+ *  1. upload acceptance latency p50/p95 of the standard record (16 channels, 200 Hz, 600 s,
+ *     float32 LE gzip) with 8 gateways uploading at once, each back to back, over loopback
+ *     HTTP to a node:http server wrapping the real route handler (a child process; not the
+ *     built Next app), and the server's CPU per upload;
+ *  2. sustained analysis throughput of one worker process (concurrency 1) draining a backlog,
+ *     FDD/EFDD settings and, separately, FDD + SSI-COV settings: per wall minute and per
+ *     minute of the worker's own CPU (the honest "per core" figure on a shared machine);
+ *  3. idle end-to-end latency: upload → the gateway reads status `analysed`, worker idle.
+ * Prints a table with the load average before and after; not a test (no pass/fail).
+ */
+import { spawn, type ChildProcess } from "node:child_process";
+import { readFileSync } from "node:fs";
+import { createServer, request as httpRequest, Agent, type IncomingMessage, type ServerResponse } from "node:http";
+import type { AddressInfo } from "node:net";
+import { Readable } from "node:stream";
+import { cpus, loadavg } from "node:os";
+import { gzipSync } from "node:zlib";
+import { simplySupportedBeamModes, simulateAmbientRecord } from "@/lib/simulate";
+
+const N_CH = 16, FS = 200, DURATION_S = 600, GATEWAYS = 8, ROUNDS = 4, SSI_RECORDS = 6, IDLE_RUNS = 5, STALL_S = 120;
+const ROOT = new URL("..", import.meta.url).pathname;
+const children: ChildProcess[] = [];
+
+/** Beam of the e2e test, 16 sensors: modes 2.5, 10, 22.5, 40 Hz (Blevins Table 8-1). */
+const BENCH_BEAM = { lengthM: 30, flexuralRigidityNm2: 1.026e10, massPerLengthKgPerM: 5000 };
+const BENCH_CODES = Array.from({ length: N_CH }, (_, i) => `S${String(i + 1).padStart(2, "0")}`);
+const benchSensorX = () => BENCH_CODES.map((_, i) => ((i + 1) * BENCH_BEAM.lengthM) / (N_CH + 1));
+
+interface Ready { port: number; fddKeys: string[]; ssiKey: string; pid: number }
+interface Answer { status: number; body: { record?: { id: string; status: string }; error?: { code: string } } }
+
+const ms = (t: bigint) => Number(t) / 1e6;
+const pct = (xs: number[], p: number) => { const a = [...xs].sort((x, y) => x - y); return a[Math.min(a.length - 1, Math.ceil((p / 100) * a.length) - 1)]; };
+const median = (xs: number[]) => pct(xs, 50);
+/** utime + stime of a process in seconds (/proc/<pid>/stat fields 14–15, USER_HZ = 100). */
+function cpuSeconds(pid: number): number {
+  const f = readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1].split(" ");
+  return (Number(f[11]) + Number(f[12])) / 100;
+}
+
+/** The standard record once, float32 LE interleaved; the first frame is varied per upload. */
+function standardRecord(): { firstFrame: Float32Array; restGz: Buffer; rawBytes: number } {
+  const modes = simplySupportedBeamModes({ ...BENCH_BEAM, sensorPositionsM: benchSensorX(), modeCount: 4 });
+  const { data } = simulateAmbientRecord({
+    modes: modes.map((m) => ({ frequencyHz: m.frequencyHz, dampingRatio: 0.01, shape: m.shape })), sampleRateHz: FS, durationS: DURATION_S, seed: 1,
+  });
+  const n = data[0].length;
+  const f32 = new Float32Array(n * N_CH);
+  for (let k = 0; k < n; k++) for (let c = 0; c < N_CH; c++) f32[k * N_CH + c] = data[c][k];
+  const bytes = Buffer.from(f32.buffer);
+  return { firstFrame: f32.slice(0, N_CH), restGz: gzipSync(bytes.subarray(4 * N_CH)), rawBytes: bytes.length };
+}
+
+/** A multipart body; the data is two gzip members (RFC 1952 §2.2): a unique first frame + the shared rest. */
+function body(rec: ReturnType<typeof standardRecord>, recordId: string, variant: number): { buf: Buffer; type: string } {
+  const frame = rec.firstFrame.slice();
+  frame[0] += variant * 1e-6;
+  const b = `----bench${recordId}`;
+  const meta = JSON.stringify({ recordId, startedAt: new Date().toISOString(), sampleRateHz: FS, channels: BENCH_CODES, units: "m/s2", temperatureC: 12 });
+  const head = `--${b}\r\ncontent-disposition: form-data; name="meta"\r\n\r\n${meta}\r\n--${b}\r\ncontent-disposition: form-data; name="data"; filename="r.f32.gz"\r\ncontent-type: application/octet-stream\r\n\r\n`;
+  return { buf: Buffer.concat([Buffer.from(head), gzipSync(Buffer.from(frame.buffer)), rec.restGz, Buffer.from(`\r\n--${b}--\r\n`)]), type: `multipart/form-data; boundary=${b}` };
+}
+
+const agent = new Agent({ keepAlive: true, maxSockets: GATEWAYS + 2 });
+function send(port: number, method: string, path: string, key: string, payload?: { buf: Buffer; type: string }): Promise<Answer> {
+  return new Promise((resolve, reject) => {
+    const headers: Record<string, string | number> = { authorization: `Bearer ${key}` };
+    if (payload) Object.assign(headers, { "content-type": payload.type, "content-length": payload.buf.length });
+    const req = httpRequest({ host: "127.0.0.1", port, method, path, headers, agent }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on("data", (c: Buffer) => chunks.push(c));
+      res.on("end", () => resolve({ status: res.statusCode ?? 0, body: JSON.parse(Buffer.concat(chunks).toString("utf8") || "{}") as Answer["body"] }));
+    });
+    req.on("error", reject);
+    req.end(payload?.buf);
+  });
+}
+
+/** Spawn with extra environment variables through env(1), inheriting the rest. */
+function spawnWith(vars: string[], args: string[]): ChildProcess {
+  const child = spawn("env", [...vars, process.execPath, ...args], { cwd: ROOT, stdio: ["ignore", "pipe", "pipe"] });
+  children.push(child);
+  return child;
+}
+function lines(child: ChildProcess, onLine: (line: string) => void): void {
+  let buf = "";
+  child.stdout!.setEncoding("utf8").on("data", (c: string) => {
+    buf += c;
+    const parts = buf.split("\n");
+    buf = parts.pop() ?? "";
+    parts.forEach(onLine);
+  });
+}
+const waitLine = (child: ChildProcess, re: RegExp, what: string) => new Promise<RegExpExecArray>((resolve, reject) => {
+  let err = "";
+  child.stderr!.setEncoding("utf8").on("data", (c: string) => { err += c; });
+  child.once("exit", (code) => reject(new Error(`${what} exited (${code}) before it was ready:\n${err.slice(-2000)}`)));
+  lines(child, (l) => { const m = re.exec(l); if (m) resolve(m); });
+});
+async function stop(child: ChildProcess, signal: NodeJS.Signals = "SIGTERM"): Promise<void> {
+  if (child.exitCode !== null || child.signalCode !== null) return;
+  const exited = new Promise((r) => child.once("exit", r));
+  child.kill(signal);
+  await exited;
+}
+
+/** A worker process; resolves each completed analyse-<id> with its time (ms, hrtime). */
+async function startWorker(vars: string[]) {
+  const child = spawnWith([...vars, "ANALYSIS_CONCURRENCY=1", "ANALYSIS_SWEEP_INTERVAL_S=3600"], ["--import", "tsx", "workers/index.ts"]);
+  const done = new Map<string, number>();
+  const w = { child, done, failure: null as string | null };
+  const ready = waitLine(child, /^worker ready/, "the worker");
+  lines(child, (l) => { const m = /^analysis job analyse-([0-9a-f-]{36}) completed/.exec(l); if (m) done.set(m[1], ms(process.hrtime.bigint())); });
+  // A failed attempt ends the bench: its figures would not describe the pipeline.
+  child.stderr!.on("data", (c: string) => { const m = /^analysis job .* failed .*$/m.exec(c); if (m) w.failure ??= m[0]; });
+  await ready;
+  return w;
+}
+
+/** Wait until every id is in `done`; throws on a failed job or after STALL_S without progress. */
+async function awaitAll(w: Awaited<ReturnType<typeof startWorker>>, ids: string[], onProgress?: () => void): Promise<void> {
+  let seen = -1, since = Date.now();
+  while (ids.some((id) => !w.done.has(id))) {
+    if (w.failure) throw new Error(`the worker failed a job: ${w.failure}`);
+    if (w.done.size !== seen) { seen = w.done.size; since = Date.now(); onProgress?.(); }
+    if (Date.now() - since > STALL_S * 1000) throw new Error(`no analysis finished for ${STALL_S} s (${w.done.size}/${ids.length} done)`);
+    await new Promise((r) => setTimeout(r, 20));
+  }
+}
+
+async function drain(vars: string[], ids: string[]): Promise<{ perWallMin: number; perCpuMin: number; msEach: number }> {
+  const w = await startWorker(vars);
+  let firstCpu = -1;
+  await awaitAll(w, ids, () => { if (firstCpu < 0 && w.done.size > 0) firstCpu = cpuSeconds(w.child.pid!); });
+  const cpu = cpuSeconds(w.child.pid!) - firstCpu;
+  const times = ids.map((id) => w.done.get(id)!).sort((a, b) => a - b);
+  await stop(w.child);
+  // Steady state: from the first completion to the last (the first record pays JIT warm-up).
+  const wallS = (times[times.length - 1] - times[0]) / 1000;
+  return { perWallMin: ((ids.length - 1) / wallS) * 60, perCpuMin: ((ids.length - 1) / cpu) * 60, msEach: (wallS * 1000) / (ids.length - 1) };
+}
+
+async function main(): Promise<void> {
+  const useEnv = process.argv.includes("--use-env");
+  const load0 = loadavg();
+  let vars: string[] = [];
+  if (!useEnv) {
+    const services = spawn(process.execPath, ["scripts/test.mjs", "--services"], { cwd: ROOT, stdio: ["ignore", "pipe", "pipe"] });
+    children.push(services);
+    const m = await waitLine(services, /export (PGPORT=.*)$/, "the test services");
+    vars = m[1].trim().split(/\s+/);
+  }
+  await new Promise<void>((resolve, reject) => spawn("env", [...vars, process.execPath, "--import", "tsx", "scripts/migrate.ts"], { cwd: ROOT, stdio: "ignore" })
+    .once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`migrations failed (${code})`)))));
+  const server = spawnWith([...vars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"], ["--import", "tsx", "scripts/bench-ingest.ts", "--serve"]);
+  const ready = JSON.parse((await waitLine(server, /^READY (.*)$/, "the bench server"))[1]) as Ready;
+  process.stderr.write("stack ready; simulating the standard record…\n");
+  const rec = standardRecord();
+  let variant = 0;
+  const upload = async (key: string) => {
+    const v = ++variant;
+    const payload = body(rec, `bench-${process.pid}-${v}`, v);
+    const t0 = process.hrtime.bigint();
+    const r = await send(ready.port, "POST", "/api/v1/records", key, payload);
+    if (r.status !== 202) throw new Error(`upload answered ${r.status}: ${JSON.stringify(r.body)}`);
+    return { id: r.body.record!.id, ms: ms(process.hrtime.bigint() - t0), bytes: payload.buf.length };
+  };
+
+  // 1. Acceptance: one warm-up round, then ROUNDS back-to-back uploads per gateway, all at once.
+  const fddIds: string[] = [];
+  for (const k of ready.fddKeys) fddIds.push((await upload(k)).id);
+  process.stderr.write(`acceptance: ${GATEWAYS} gateways × ${ROUNDS} uploads…\n`);
+  const cpu0 = cpuSeconds(ready.pid);
+  const lat: number[] = [];
+  let sentBytes = 0;
+  await Promise.all(ready.fddKeys.map(async (k) => {
+    for (let i = 0; i < ROUNDS; i++) {
+      const u = await upload(k);
+      fddIds.push(u.id);
+      lat.push(u.ms);
+      sentBytes = u.bytes;
+    }
+  }));
+  const serverCpuMs = ((cpuSeconds(ready.pid) - cpu0) * 1000) / lat.length;
+  const single: number[] = [];
+  for (let i = 0; i < 3; i++) { const u = await upload(ready.fddKeys[0]); fddIds.push(u.id); single.push(u.ms); }
+
+  // 2. Throughput: one worker drains the backlog; SSI-COV records queued while no worker runs.
+  process.stderr.write(`throughput: draining ${fddIds.length} FDD/EFDD records…\n`);
+  const fdd = await drain(vars, fddIds);
+  const ssiIds: string[] = [];
+  for (let i = 0; i < SSI_RECORDS; i++) ssiIds.push((await upload(ready.ssiKey)).id);
+  process.stderr.write(`throughput: draining ${ssiIds.length} FDD + SSI-COV records…\n`);
+  const ssi = await drain(vars, ssiIds);
+
+  // 3. Idle end-to-end: one record at a time, the gateway polls its record every 20 ms.
+  const w = await startWorker(vars);
+  const e2e: number[] = [];
+  for (let i = 0; i < IDLE_RUNS; i++) {
+    const t0 = process.hrtime.bigint();
+    const { id } = await upload(ready.fddKeys[1]);
+    for (;;) {
+      if (w.failure) throw new Error(`the worker failed a job: ${w.failure}`);
+      const r = await send(ready.port, "GET", `/api/v1/records/${id}`, ready.fddKeys[1]);
+      if (r.body.record?.status === "analysed") break;
+      if (r.body.record?.status === "failed" || r.body.record?.status === "rejected") throw new Error(`record ${id} ${r.body.record.status}`);
+      await new Promise((r2) => setTimeout(r2, 20));
+    }
+    e2e.push(ms(process.hrtime.bigint() - t0));
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  await stop(w.child);
+
+  const load1 = loadavg();
+  const row = (a: string, b: string, c: string) => `| ${a.padEnd(62)} | ${b.padStart(22)} | ${c.padEnd(12)} |`;
+  console.log(`\nModewarden ingest bench — ${new Date().toISOString()}, Node ${process.version}, ${cpus().length} cores`);
+  console.log(`load average before ${load0.map((x) => x.toFixed(2)).join(" ")}, after ${load1.map((x) => x.toFixed(2)).join(" ")}`);
+  console.log(`upload path: loopback HTTP → in-process node:http server wrapping the route handler of POST /api/v1/records (not the built Next app)`);
+  console.log(`standard record: ${N_CH} ch × ${FS} Hz × ${DURATION_S} s float32 LE, ${(rec.rawBytes / 1e6).toFixed(2)} MB decoded, ${(sentBytes / 1e6).toFixed(2)} MB gzip multipart\n`);
+  console.log(row("measure", "value", "target"));
+  console.log(row("-".repeat(62), "-".repeat(22), "-".repeat(12)));
+  console.log(row(`upload acceptance p50, ${GATEWAYS} gateways at once (${lat.length} uploads)`, `${median(lat).toFixed(0)} ms`, ""));
+  console.log(row(`upload acceptance p95, ${GATEWAYS} gateways at once`, `${pct(lat, 95).toFixed(0)} ms`, "≤ 300 ms"));
+  console.log(row("upload acceptance, one gateway alone (median of 3)", `${median(single).toFixed(0)} ms`, ""));
+  console.log(row("server CPU per upload", `${serverCpuMs.toFixed(0)} ms`, ""));
+  console.log(row(`FDD/EFDD: records analysed per wall minute, 1 worker (${fddIds.length})`, `${fdd.perWallMin.toFixed(0)} (${fdd.msEach.toFixed(0)} ms each)`, "≥ 120/core"));
+  console.log(row("FDD/EFDD: records per minute of worker CPU", fdd.perCpuMin.toFixed(0), "≥ 120/core"));
+  console.log(row(`FDD + SSI-COV: records per wall minute, 1 worker (${ssiIds.length})`, `${ssi.perWallMin.toFixed(0)} (${ssi.msEach.toFixed(0)} ms each)`, ""));
+  console.log(row("FDD + SSI-COV: records per minute of worker CPU", ssi.perCpuMin.toFixed(0), ""));
+  console.log(row(`idle end-to-end upload → analysed, median (max) of ${IDLE_RUNS}`, `${median(e2e).toFixed(0)} (${Math.max(...e2e).toFixed(0)}) ms`, "≤ 2000 ms"));
+}
+
+/**
+ * `--serve` (a child with the stack's environment): an organisation, an FDD/EFDD asset with
+ * the 16 beam channels, its 3 tracked modes and GATEWAYS gateways, an FDD + SSI-COV asset with
+ * one gateway; then a node:http server in front of the record routes. Prints `READY <json>`.
+ */
+async function runBenchServer(): Promise<void> {
+  const [{ db, closeDb }, orgRepo, userRepo, memberRepo, { hashPassword }, assets, { createGateway }, { CreateAssetInput }, trackedRepo,
+    settingsRepo, { DEFAULT_ANALYSIS_SETTINGS }, recordsRoute, recordRoute, { closeQueues }, { closeRateLimiter }] = await Promise.all([
+    import("@/lib/db/knex"), import("@/lib/db/repos/organisation.repo"), import("@/lib/db/repos/user.repo"), import("@/lib/db/repos/membership.repo"),
+    import("@/lib/auth/passwords"), import("@/lib/services/assets/asset.service"), import("@/lib/services/assets/gateway.service"),
+    import("@/lib/services/assets/schemas"), import("@/lib/db/repos/tracked-mode.repo"), import("@/lib/db/repos/analysis-settings.repo"),
+    import("@/lib/services/analysis/settings"), import("@/app/api/v1/records/route"), import("@/app/api/v1/records/[recordId]/route"),
+    import("@/lib/jobs/queues"), import("@/lib/services/ingest/rate-limit"),
+  ]);
+  const tag = `${Date.now()}`;
+  const org = await orgRepo.insertOrganisation(db(), { name: `Bench ${tag}`, timeZone: "America/Denver" });
+  const passwordHash = await hashPassword(`bench-unused-${tag}`);
+  const actorOf = async (role: "admin" | "engineer") => {
+    const user = await userRepo.insertUser(db(), { email: `${role}-${tag}@bench.example`, passwordHash, displayName: `Bench ${role}` });
+    await memberRepo.insertMembership(db(), { userId: user.id, organisationId: org.id, role });
+    return { userId: user.id, organisationId: org.id, role, via: "session" as const };
+  };
+  const [admin, engineer] = [await actorOf("admin"), await actorOf("engineer")];
+  const modes = simplySupportedBeamModes({ ...BENCH_BEAM, sensorPositionsM: benchSensorX(), modeCount: 3 });
+  const makeAsset = async (name: string, gateways: number) => {
+    const asset = await assets.createAsset(engineer, CreateAssetInput.parse({
+      name: `${name} ${tag}`, kind: "footbridge", latitude: 39.2, longitude: -104.1, material: "Steel", mainDimensionM: 30, expectedIntervalMin: 10,
+    }));
+    for (const [i, code] of BENCH_CODES.entries()) await assets.addChannel(engineer, asset.id, { code, positionM: { x: benchSensorX()[i], y: 0, z: 0 }, direction: "z" });
+    for (const [j, m] of modes.entries()) {
+      await trackedRepo.insertTrackedMode(db(), asset.id, {
+        label: `bending ${j + 1}`, nominalFrequencyHz: m.frequencyHz, bandLowHz: m.frequencyHz * 0.9, bandHighHz: m.frequencyHz * 1.1,
+        referenceShape: Object.fromEntries(BENCH_CODES.map((c, i) => [c, m.shape[i]])),
+      });
+    }
+    const keys: string[] = [];
+    for (let i = 0; i < gateways; i++) keys.push((await createGateway(admin, asset.id, { name: `gw ${i + 1}` })).key);
+    return { asset, keys };
+  };
+  const fdd = await makeAsset("Bench FDD", GATEWAYS);
+  const ssi = await makeAsset("Bench SSI", 1);
+  await settingsRepo.insertAnalysisSettingsVersion(db(), ssi.asset.id, { ...DEFAULT_ANALYSIS_SETTINGS, methods: ["fdd", "ssi"] }, null);
+
+  const server = createServer((req: IncomingMessage, res: ServerResponse) => {
+    void (async () => {
+      const url = new URL(req.url ?? "/", "http://127.0.0.1");
+      const headers = new Headers();
+      for (const [k, v] of Object.entries(req.headers)) if (typeof v === "string") headers.set(k, v);
+      const reqBody = req.method === "POST" ? (Readable.toWeb(req) as ReadableStream<Uint8Array>) : undefined;
+      const request = new Request(url, { method: req.method, headers, body: reqBody, duplex: "half" } as RequestInit);
+      const one = /^\/api\/v1\/records\/([^/]+)$/.exec(url.pathname);
+      const response = url.pathname === "/api/v1/records" && req.method === "POST"
+        ? await recordsRoute.POST(request, { params: Promise.resolve({}) })
+        : one && req.method === "GET" ? await recordRoute.GET(request, { params: Promise.resolve({ recordId: one[1] }) }) : new Response("{}", { status: 404 });
+      res.writeHead(response.status, Object.fromEntries(response.headers));
+      res.end(Buffer.from(await response.arrayBuffer()));
+    })().catch((e: unknown) => res.writeHead(500).end(String(e)));
+  });
+  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
+  process.on("SIGTERM", () => {
+    server.close();
+    void Promise.all([closeQueues(), closeRateLimiter(), closeDb()]).finally(() => process.exit(0));
+  });
+  const ready: Ready = { port: (server.address() as AddressInfo).port, fddKeys: fdd.keys, ssiKey: ssi.keys[0], pid: process.pid };
+  console.log(`READY ${JSON.stringify(ready)}`);
+}
+
+async function shutdown(): Promise<void> {
+  agent.destroy();
+  for (const c of [...children].reverse()) await stop(c).catch(() => undefined);
+}
+
+if (process.argv.includes("--serve")) {
+  void runBenchServer();
+} else {
+  for (const s of ["SIGINT", "SIGTERM"] as const) process.on(s, () => void shutdown().then(() => process.exit(130)));
+  main().then(shutdown, async (e: unknown) => {
+    console.error(e instanceof Error ? e.stack : String(e));
+    await shutdown();
+    process.exitCode = 1;
+  });
+}
