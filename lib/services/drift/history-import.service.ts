@@ -16,7 +16,7 @@ import { loadOwnAsset } from "@/lib/services/assets/asset.service";
 import { recordAudit } from "@/lib/services/audit/audit.service";
 import { assertCan } from "@/lib/services/authz";
 import { DEFAULT_BAND_FRACTION } from "@/lib/services/tracking/schemas";
-import { parseHistoryCsv, type HistoryRow } from "./history-csv";
+import { parseHistoryCsv, type HistoryRow, type HistoryRowError } from "./history-csv";
 
 export interface HistoryImportSummary {
   source: string;
@@ -86,6 +86,53 @@ export async function importModalHistory(
   });
   if (imported > 0) await enqueueDrift(asset.id);
   return { ...base, imported, modes, preview: false };
+}
+
+/** What the import page shows before the engineer confirms (nothing is written). */
+export interface HistoryImportPreview {
+  /** sha256 of the file, as `import:<hex>`; the confirm step sends the same file again. */
+  source: string;
+  rows: number;
+  from: Date | null;
+  to: Date | null;
+  modes: { label: string; rows: number; created: boolean }[];
+  /** The first data rows as parsed (line numbers of the file). */
+  firstRows: HistoryRow[];
+  /** Every bad row (all when there are errors: nothing can be imported then). */
+  errors: HistoryRowError[];
+  /** Estimates of this very file the asset already holds (a re-import adds nothing). */
+  alreadyImported: number;
+}
+
+/**
+ * Dry run of {@link importModalHistory}: parse and summarise a file without writing, and
+ * list every bad row instead of throwing.
+ * @throws AppError forbidden (role), not_found (asset of another organisation).
+ */
+export async function previewModalHistory(actor: Actor, assetId: string, csvText: string, opts: { firstRows?: number } = {}): Promise<HistoryImportPreview> {
+  assertCan(actor, "baseline:write");
+  const asset = await loadOwnAsset(actor, assetId);
+  const { rows, errors } = parseHistoryCsv(csvText);
+  const source = `import:${createHash("sha256").update(csvText).digest("hex")}`;
+  const existing = new Set((await listTrackedModesOfAsset(db(), asset.id, { includeInactive: true })).map((m) => m.label));
+  const count = new Map<string, number>();
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const r of rows) {
+    count.set(r.mode, (count.get(r.mode) ?? 0) + 1);
+    lo = Math.min(lo, r.at.getTime());
+    hi = Math.max(hi, r.at.getTime());
+  }
+  return {
+    source,
+    rows: rows.length,
+    from: rows.length ? new Date(lo) : null,
+    to: rows.length ? new Date(hi) : null,
+    modes: [...count.entries()].map(([label, n]) => ({ label, rows: n, created: !existing.has(label) })),
+    firstRows: rows.slice(0, opts.firstRows ?? 10),
+    errors,
+    alreadyImported: errors.length === 0 ? await countEstimatesOfSource(db(), asset.id, source) : 0,
+  };
 }
 
 /** How many estimates of `source` the asset holds (for tests and the preview). */
