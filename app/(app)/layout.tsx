@@ -18,9 +18,9 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
   const actor = await getActor();
   if (!actor) redirect("/sign-in");
   const [memberships, profile] = await Promise.all([listMemberships(actor.userId), getProfile(actor)]);
-  // Alerts joins this list when that screen exists; no placeholder pages.
   const nav: NavItem[] = [
     { href: "/", label: "Portfolio" },
+    { href: "/alerts", label: "Alerts" },
     { href: "/team", label: "Team" },
     { href: "/account", label: "Account" },
   ];
