@@ -9,7 +9,7 @@ import { execFileSync } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import type { Worker } from "bullmq";
+import { Queue, type Worker } from "bullmq";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as reportRoute from "@/app/api/v1/assets/[assetId]/report/route";
 import * as csvRoute from "@/app/api/v1/assets/[assetId]/export/modal-history.csv/route";
@@ -25,6 +25,7 @@ import { createAsset } from "@/lib/services/assets/asset.service";
 import { fitAndActivateBaseline } from "@/lib/services/drift/baseline.service";
 import { recomputeDrift } from "@/lib/services/drift/drift.service";
 import { importModalHistory } from "@/lib/services/drift/history-import.service";
+import { MONTHLY_CRON, REPORTS_QUEUE, scheduleMonthlyReports } from "@/lib/services/reports/monthly-schedule";
 import { sendMonthlyReports } from "@/lib/services/reports/monthly.service";
 import { renderAssetReport } from "@/lib/services/reports/report-pdf.service";
 import { simulateDriftHistory } from "@/lib/stats/drift-simulation";
@@ -205,5 +206,26 @@ describe("monthly reports", () => {
     expect(m.attachments[0]).toMatchObject({ contentType: "application/pdf" });
     expect(m.attachments[0].filename).toMatch(/\.pdf$/);
     expect(m.attachments[0].size).toBeGreaterThan(1000);
+  });
+});
+
+describe("monthly report schedule", () => {
+  it("keeps one job scheduler firing at 06:00 UTC on the 1st, however often it is upserted", async () => {
+    const queue = new Queue(REPORTS_QUEUE, { connection });
+    try {
+      await scheduleMonthlyReports(queue);
+      await scheduleMonthlyReports(queue);
+      const schedulers = await queue.getJobSchedulers();
+      expect(schedulers).toHaveLength(1);
+      expect(schedulers[0]).toMatchObject({ pattern: MONTHLY_CRON, tz: "UTC" });
+      // The next run is the coming 1st of a month at 06:00 UTC (cron "0 6 1 * *").
+      const next = new Date(Number(schedulers[0].next));
+      expect([next.getUTCDate(), next.getUTCHours(), next.getUTCMinutes()]).toEqual([1, 6, 0]);
+      expect(next.getTime()).toBeGreaterThan(Date.now());
+      expect(next.getTime() - Date.now()).toBeLessThanOrEqual(31 * DAY);
+    } finally {
+      await queue.obliterate({ force: true });
+      await queue.close();
+    }
   });
 });
