@@ -98,6 +98,27 @@ describe("the condition reason in plain words", () => {
     expect(describeCondition(freshView, { ...ctx, condition: "commissioning" }).sentences[0]).toMatch(/^No baseline yet/);
   });
 
+  it("names the most shifted mode in full and the others briefly, a mode shifted the other way in its own clause", () => {
+    // Hand-built view: daily residuals (Hz) over the last days; nominal 2 Hz, 4 Hz and 8 Hz.
+    const day = (i: number, r: number, beyond: boolean) => ({ dayMs: Date.UTC(2026, 10, 1 + i), residualHz: r, beyond });
+    const view = {
+      condition: "alert" as const, skipped: null, baseline: { version: 2, status: "complete" as const }, t2: [],
+      modes: [
+        // −0.02 Hz of 2 Hz = −1.0 % on days 3–5 (3 days).
+        { label: "first", nominalHz: 2, daily: [day(0, 0, false), day(1, 0, false), day(2, 0, false), day(3, -0.02, true), day(4, -0.02, true), day(5, -0.02, true)] },
+        // mean of −0.06 and −0.10 = −0.08 Hz of 4 Hz = −2.0 % on days 4–5 (2 days).
+        { label: "second", nominalHz: 4, daily: [day(3, 0, false), day(4, -0.06, true), day(5, -0.1, true)] },
+        // +0.04 Hz of 8 Hz = +0.5 % on day 5 only.
+        { label: "third", nominalHz: 8, daily: [day(4, 0, false), day(5, 0.04, true)] },
+      ],
+    };
+    const r = describeCondition(view, { condition: "alert", openAlerts: [], lastAcceptedAt: null, expectedIntervalMin: 60, now: new Date() });
+    expect(r.sentences).toEqual([
+      "Mode 2 (second) is 2.0 % below its temperature-compensated baseline for 2 days, as is Mode 1 (first, 1.0 % for 3 days); "
+        + "Mode 3 (third) is 0.5 % above its temperature-compensated baseline for 1 day.",
+    ]);
+  });
+
   it("lists the baseline version and the import among the changes since a date, and nothing since tomorrow", async () => {
     const asset = await createAsset(team.engineer.actor, validAsset(unique("Changes")));
     await importModalHistory(team.engineer.actor, asset.id, historyCsv(t0, 160, null));
@@ -167,7 +188,7 @@ describe("the Portfolio's needs-attention list", () => {
     expect(items.map((i) => [i.kind, i.assetName])).toEqual([
       ["alert", a.name], ["silent", b.name], ["data", f.name], ["no_baseline", d.name], ["provisional_baseline", c.name],
     ]);
-    expect(items[0]).toMatchObject({ href: `/alerts/${alert.id}`, title: "Alert open", detail: "Raised 2026-11-15; 5 days ago." });
+    expect(items[0]).toMatchObject({ href: `/alerts/${alert.id}`, title: "Alert open", detail: "Raised 5 days ago." });
     expect(items[1]).toMatchObject({ href: `/assets/${b.id}`, detail: "No accepted record yet." });
     expect(items[2]).toMatchObject({
       href: `/assets/${f.id}#availability`, title: "Sensor A2 flat-lined",

@@ -53,15 +53,13 @@ export function formatSpan(ms: number): string {
   return "less than an hour";
 }
 
-const day = (d: Date) => d.toISOString().slice(0, 10);
-
 /** The list, most urgent kind first (ATTENTION_KINDS order), then by asset name. */
 export function buildAttention(input: AttentionInput): AttentionItem[] {
   const items: AttentionItem[] = [];
   for (const a of input.alerts) {
     items.push({
       kind: "alert", assetId: a.assetId, assetName: a.assetName, href: `/alerts/${a.id}`,
-      title: `Alert ${STATE_WORDS[a.state]}`, detail: `Raised ${day(a.raisedAt)}; ${formatSpan(input.now.getTime() - a.raisedAt.getTime())} ago.`,
+      title: `Alert ${STATE_WORDS[a.state]}`, detail: `Raised ${formatSpan(input.now.getTime() - a.raisedAt.getTime())} ago.`,
       at: a.raisedAt.toISOString(),
     });
   }

@@ -89,8 +89,25 @@ function shiftPhrase(s: ModeShift): string {
   return `${modeName(s.number, s.label)} is ${pct(s.shiftPct)} ${s.shiftPct < 0 ? "below" : "above"} its temperature-compensated baseline for ${plural(s.days, "day")}`;
 }
 
-function joinAnd(parts: string[]): string {
-  return parts.length <= 1 ? parts.join("") : `${parts.slice(0, -1).join("; ")} and ${parts[parts.length - 1]}`;
+/** "a", "a and b", "a, b and c". */
+function joinList(parts: string[]): string {
+  return parts.length <= 1 ? parts.join("") : `${parts.slice(0, -1).join(", ")} and ${parts[parts.length - 1]}`;
+}
+
+/**
+ * The most shifted mode in full; the others shifted the same way briefly ("as are Mode 1
+ * (1st lateral, 1.0 %) …", their duration only when it differs); any shifted the other way
+ * in a clause of their own.
+ */
+function shiftsSentence(shifts: ModeShift[]): string {
+  const [first, ...rest] = shifts;
+  const same = rest.filter((s) => Math.sign(s.shiftPct) === Math.sign(first.shiftPct));
+  const other = rest.filter((s) => Math.sign(s.shiftPct) !== Math.sign(first.shiftPct));
+  const brief = (s: ModeShift) => `Mode ${s.number} (${s.label}, ${pct(s.shiftPct)}${s.days !== first.days ? ` for ${plural(s.days, "day")}` : ""})`;
+  let text = shiftPhrase(first);
+  if (same.length > 0) text += `, as ${same.length === 1 ? "is" : "are"} ${joinList(same.map(brief))}`;
+  if (other.length > 0) text += `; ${joinList(other.map(shiftPhrase))}`;
+  return text;
 }
 
 /** The plain-words reason for the asset's condition (see the module header for the rules). */
@@ -114,7 +131,7 @@ export function describeCondition(view: ReasonView | null, ctx: ReasonContext): 
   } else if (view.skipped) {
     sentences.push(`No drift statistics could be computed: ${view.skipped}.`);
   } else if (shifts.length > 0) {
-    const head = joinAnd(shifts.map(shiftPhrase));
+    const head = shiftsSentence(shifts);
     const tail = ctx.condition === "watch" && !alert ? "not confirmed yet" : alert;
     sentences.push(`${head}${tail ? `; ${tail}` : ""}.`);
   } else {

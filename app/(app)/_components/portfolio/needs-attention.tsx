@@ -32,12 +32,10 @@ export function NeedsAttention({ items, timeZone, className }: { items: Attentio
                   <span className="flex flex-wrap items-baseline gap-x-2">
                     <span className="font-medium text-ink group-hover:text-accent group-hover:underline">{it.assetName}</span>
                     <span className="text-xs font-medium uppercase tracking-wide text-muted">{KIND_STYLE[it.kind].label}</span>
+                    {it.at ? <time dateTime={it.at} className="ml-auto text-xs text-muted tabular-nums">{formatDateTime(it.at, timeZone)}</time> : null}
                   </span>
                   <span className="block text-sm">{it.title}</span>
-                  <span className="block text-xs text-muted">
-                    {it.detail}
-                    {it.at && it.kind === "alert" ? ` (${formatDateTime(it.at, timeZone)})` : ""}
-                  </span>
+                  <span className="block text-xs text-muted">{it.detail}</span>
                 </span>
               </Link>
             </li>

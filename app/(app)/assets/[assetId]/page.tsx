@@ -68,23 +68,22 @@ export default async function AssetOverviewPage({
   const active = overview.channels.filter((c) => c.active).length;
   const summary = toAssetSummary({ ...asset, channelCount: active, openAlertCount: overview.openAlerts.length });
 
+  const channelIssues = describeChannelIssues(availability.channels);
+
   return (
     <div className="space-y-5" data-testid="asset-overview">
       <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <div className="min-w-0 space-y-5">
-          <ConditionPanel
-            condition={asset.condition}
-            sentences={reason.sentences}
-            caution={OVERVIEW_CAUTION}
-            note={view.baseline ? `Baseline version ${view.baseline.version} (${view.baseline.status}), trained ${view.baseline.trainingFrom.toISOString().slice(0, 10)} to ${view.baseline.trainingTo.toISOString().slice(0, 10)}.` : null}
-          />
-          <ModeTable rows={modeRows} t2={lastT2} timeZone={tz} windowDays={AVAILABILITY_DAYS} hasBaseline={view.baseline !== null} />
-        </div>
-        <div className="min-w-0 space-y-5">
-          <FactsPanel asset={asset} canEdit={can(actor.role, "asset:write")} activeChannels={active} inactiveChannels={overview.channels.length - active} timeZone={tz} />
-          <AssetLocationMap asset={summary} styleUrl={env().MAP_STYLE_URL} />
-        </div>
+        <ConditionPanel
+          condition={asset.condition}
+          sentences={reason.sentences}
+          caution={OVERVIEW_CAUTION}
+          dataIssues={channelIssues}
+          note={view.baseline ? `Baseline version ${view.baseline.version}, trained on ${view.baseline.trainingFrom.toISOString().slice(0, 10)} to ${view.baseline.trainingTo.toISOString().slice(0, 10)}.` : null}
+        />
+        <FactsPanel asset={asset} canEdit={can(actor.role, "asset:write")} activeChannels={active} inactiveChannels={overview.channels.length - active} timeZone={tz} />
       </div>
+
+      <ModeTable rows={modeRows} t2={lastT2} timeZone={tz} windowDays={AVAILABILITY_DAYS} hasBaseline={view.baseline !== null} />
 
       {/* ── Serviceability slot (issue 6 §2, H5): <ServiceabilityPanel> from
             components/serviceability/serviceability-panel.tsx goes here once it exists. ── */}
@@ -96,11 +95,12 @@ export default async function AssetOverviewPage({
           counts={availability.recordsPerDay}
           expectedPerDay={availability.expectedPerDay}
           channels={availability.channels}
-          issues={describeChannelIssues(availability.channels)}
+          issues={channelIssues}
         />
         <div className="min-w-0 space-y-5">
           <OpenAlertsPanel alerts={overview.openAlerts} timeZone={tz} />
           <GatewaysPanel gateways={overview.gateways} timeZone={tz} expectedIntervalMin={asset.expectedIntervalMin} now={now} />
+          <AssetLocationMap asset={summary} styleUrl={env().MAP_STYLE_URL} />
         </div>
       </div>
 

@@ -57,38 +57,36 @@ function RecordsPerDay({ counts, expected }: { counts: DayCount[]; expected: num
 
 /** One row per configured channel, one cell per day, coloured by the channel's state that day. */
 function ChannelTimeline({ rows, days }: { rows: ChannelTimelineRow[]; days: string[] }) {
+  const cols = { gridTemplateColumns: `minmax(2.5rem, max-content) repeat(${days.length}, minmax(0, 1fr))` };
   return (
     <figure data-testid="channel-timeline">
       <figcaption className="mb-1 text-xs text-muted">Sensor channels per day (from each record&apos;s quality screening)</figcaption>
-      <div className="overflow-x-auto">
-        <table className="border-separate border-spacing-[2px] text-xs">
-          <tbody>
-            {rows.map((r) => (
-              <tr key={r.channel} data-channel={r.channel} data-active={r.active ? "true" : "false"}>
-                <th scope="row" className="pr-2 text-left font-medium whitespace-nowrap">
-                  {r.channel}
-                  {!r.active ? <span className="ml-1 font-normal text-muted">(out of service)</span> : null}
-                </th>
-                {r.cells.map((c) => (
-                  <td
-                    key={c.day}
-                    data-day={c.day}
-                    data-state={c.state}
-                    title={`${r.channel} ${c.day}: ${CELL[c.state].label}${c.records > 0 ? ` (${c.excluded} of ${c.records} records excluded${c.flags.length ? `; ${c.flags.join(", ").replaceAll("_", " ")}` : ""})` : ""}`}
-                    className="h-4 w-4 min-w-4 rounded-[2px] p-0"
-                    style={{ background: CELL[c.state].fill }}
-                  />
-                ))}
-              </tr>
+      <div role="table" aria-label="Sensor channel state per day" className="grid gap-[2px] text-xs" style={cols}>
+        {rows.map((r) => (
+          <div role="row" key={r.channel} className="contents" data-channel={r.channel} data-active={r.active ? "true" : "false"}>
+            <div role="rowheader" className="pr-2 font-medium whitespace-nowrap leading-4">
+              {r.channel}
+              {!r.active ? <span className="ml-1 font-normal text-muted">(out of service)</span> : null}
+            </div>
+            {r.cells.map((c) => (
+              <div
+                role="cell"
+                key={c.day}
+                data-day={c.day}
+                data-state={c.state}
+                title={`${r.channel} ${c.day}: ${CELL[c.state].label}${c.records > 0 ? ` (${c.excluded} of ${c.records} records excluded${c.flags.length ? `; ${c.flags.join(", ").replaceAll("_", " ")}` : ""})` : ""}`}
+                className="h-4 rounded-[2px]"
+                style={{ background: CELL[c.state].fill }}
+              />
             ))}
-            <tr>
-              <th />
-              {days.map((d, i) => (
-                <td key={d} className="p-0 text-center text-[10px] text-muted">{i % 7 === 0 || i === days.length - 1 ? new Date(`${d}T12:00:00Z`).getUTCDate() : ""}</td>
-              ))}
-            </tr>
-          </tbody>
-        </table>
+          </div>
+        ))}
+        <div aria-hidden />
+        {days.map((d, i) => (
+          <div key={d} aria-hidden className="whitespace-nowrap text-center text-[10px] leading-3 text-muted">
+            {i % 7 === 0 || i === days.length - 1 ? shortDay(d) : ""}
+          </div>
+        ))}
       </div>
       <ul className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-xs text-muted">
         {(Object.keys(CELL) as ChannelDayState[]).map((s) => (
@@ -107,8 +105,8 @@ export function AvailabilityPanel({
   days, counts, expectedPerDay, channels, issues,
 }: { days: string[]; counts: DayCount[]; expectedPerDay: number; channels: ChannelTimelineRow[]; issues: string[] }) {
   return (
+    <div id="availability" className="min-w-0 scroll-mt-4">
     <Panel title={`Data availability, last ${days.length} days`} bodyClassName="space-y-4">
-      <div id="availability" className="sr-only" />
       {issues.length > 0 ? (
         <ul className="space-y-0.5 text-sm" data-testid="channel-issues">
           {issues.map((t) => <li key={t} className="text-danger">{t}</li>)}
@@ -117,5 +115,6 @@ export function AvailabilityPanel({
       <RecordsPerDay counts={counts} expected={expectedPerDay} />
       <ChannelTimeline rows={channels} days={days} />
     </Panel>
+    </div>
   );
 }

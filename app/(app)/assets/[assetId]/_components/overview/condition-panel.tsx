@@ -5,8 +5,8 @@ import { Panel } from "@/components/ui/panel";
 
 /** The condition, why (plain words, from the drift statistics) and the caution of PRODUCT.md. */
 export function ConditionPanel({
-  condition, sentences, caution, note,
-}: { condition: AssetCondition; sentences: string[]; caution: string; note?: string | null }) {
+  condition, sentences, caution, note, dataIssues = [],
+}: { condition: AssetCondition; sentences: string[]; caution: string; note?: string | null; dataIssues?: string[] }) {
   const s = CONDITION_STYLES[condition];
   return (
     <Panel title="Condition" bodyClassName="space-y-3">
@@ -20,6 +20,16 @@ export function ConditionPanel({
           <p key={i} className={i === 0 ? "font-medium" : "text-muted"}>{t}</p>
         ))}
       </div>
+      {dataIssues.length > 0 ? (
+        <ul className="space-y-0.5 text-sm" data-testid="condition-data-issues">
+          {dataIssues.map((t) => (
+            <li key={t}>
+              <span className="font-medium">Data: </span>
+              {t} <a href="#availability" className="text-accent hover:underline">See the channel timeline</a>.
+            </li>
+          ))}
+        </ul>
+      ) : null}
       {note ? <p className="text-sm text-muted">{note}</p> : null}
       <p
         data-testid="overview-caution"

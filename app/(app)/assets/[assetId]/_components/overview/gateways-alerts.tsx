@@ -7,13 +7,13 @@ const STATE_WORDS: Record<string, string> = { open: "Open", acknowledged: "Ackno
 
 const latest = (...ds: (Date | null)[]) => ds.filter((d): d is Date => d !== null).sort((a, b) => b.getTime() - a.getTime())[0] ?? null;
 
-/** Gateways of the asset with their last contact (upload, heartbeat or record). */
+/** Gateways of the asset with their last contact: the latest of an upload or heartbeat seen and the newest record's start. */
 export function GatewaysPanel({ gateways, timeZone, expectedIntervalMin, now }: { gateways: GatewayContact[]; timeZone: string; expectedIntervalMin: number; now: Date }) {
   return (
     <Panel title="Gateways" bodyClassName="p-0">
       <ul className="divide-y divide-line/70" data-testid="overview-gateways">
         {gateways.map((g) => {
-          const last = latest(g.lastSeenAt, g.lastHeartbeatAt);
+          const last = latest(g.lastSeenAt, g.lastHeartbeatAt, g.lastRecordAt);
           const late = !g.revokedAt && (!last || now.getTime() - last.getTime() > expectedIntervalMin * 60_000);
           return (
             <li key={g.id} className="px-4 py-2.5 text-sm" data-gateway={g.id}>
