@@ -21,6 +21,12 @@ function optionalNumber(s: string): number | null | undefined {
 
 /** Parse the whole file; rows are returned only when there are no errors. */
 export function parseHistoryCsv(text: string): { rows: HistoryRow[]; errors: HistoryRowError[] } {
+  const r = inspectHistoryCsv(text);
+  return r.errors.length > 0 ? { rows: [], errors: r.errors } : r;
+}
+
+/** As {@link parseHistoryCsv} but the valid rows are returned even when other rows are bad (for a preview). */
+export function inspectHistoryCsv(text: string): { rows: HistoryRow[]; errors: HistoryRowError[] } {
   const lines = text.replace(/^\uFEFF/, "").split(/\r?\n/);
   while (lines.length > 0 && lines[lines.length - 1].trim() === "") lines.pop();
   const errors: HistoryRowError[] = [];
@@ -53,5 +59,5 @@ export function parseHistoryCsv(text: string): { rows: HistoryRow[]; errors: His
     seen.set(key, line);
     rows.push({ line, at, mode, frequencyHz: freq, dampingRatio: damping, temperatureC: temp });
   }
-  return errors.length > 0 ? { rows: [], errors } : { rows, errors };
+  return { rows, errors };
 }

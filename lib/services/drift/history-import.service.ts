@@ -16,7 +16,7 @@ import { loadOwnAsset } from "@/lib/services/assets/asset.service";
 import { recordAudit } from "@/lib/services/audit/audit.service";
 import { assertCan } from "@/lib/services/authz";
 import { DEFAULT_BAND_FRACTION } from "@/lib/services/tracking/schemas";
-import { parseHistoryCsv, type HistoryRow, type HistoryRowError } from "./history-csv";
+import { inspectHistoryCsv, parseHistoryCsv, type HistoryRow, type HistoryRowError } from "./history-csv";
 
 export interface HistoryImportSummary {
   source: string;
@@ -92,6 +92,7 @@ export async function importModalHistory(
 export interface HistoryImportPreview {
   /** sha256 of the file, as `import:<hex>`; the confirm step sends the same file again. */
   source: string;
+  /** Valid rows (the bad ones are in `errors`). */
   rows: number;
   from: Date | null;
   to: Date | null;
@@ -112,7 +113,7 @@ export interface HistoryImportPreview {
 export async function previewModalHistory(actor: Actor, assetId: string, csvText: string, opts: { firstRows?: number } = {}): Promise<HistoryImportPreview> {
   assertCan(actor, "baseline:write");
   const asset = await loadOwnAsset(actor, assetId);
-  const { rows, errors } = parseHistoryCsv(csvText);
+  const { rows, errors } = inspectHistoryCsv(csvText);
   const source = `import:${createHash("sha256").update(csvText).digest("hex")}`;
   const existing = new Set((await listTrackedModesOfAsset(db(), asset.id, { includeInactive: true })).map((m) => m.label));
   const count = new Map<string, number>();

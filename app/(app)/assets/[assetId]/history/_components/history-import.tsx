@@ -42,6 +42,7 @@ export function HistoryImport({ assetId, timeZone }: { assetId: string; timeZone
     fd.set("assetId", assetId);
     fd.set("file", file);
     setShownFor(file);
+    setImportedFor(null);
     startTransition(() => dispatchPreview(fd));
   }
   function onConfirm() {
