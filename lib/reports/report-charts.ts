@@ -20,7 +20,7 @@ export interface ReportChart {
 
 export const CHART_COLOURS = {
   measured: "#0f766e",
-  predicted: "#52606d",
+  predicted: "#9aa5b1",
   residual: "#7b8794",
   ewma: "#1d4ed8",
   limit: "#b91c1c",
@@ -39,7 +39,7 @@ export function renderReportCharts(r: AssetReport): ReportChart[] {
       const chart = renderLineChart({
         width: W, height: H, xRange,
         series: [
-          { kind: "dots", x: pts.map((p) => p.atMs), y: pts.map((p) => p.frequencyHz), colour: CHART_COLOURS.measured, size: 2 },
+          { kind: "dots", x: pts.map((p) => p.atMs), y: pts.map((p) => p.frequencyHz), colour: CHART_COLOURS.measured, size: 2.5 },
           { kind: "line", x: pts.map((p) => p.atMs), y: pts.map((p) => p.predictedHz ?? Number.NaN), colour: CHART_COLOURS.predicted, size: 1 },
         ],
       });
