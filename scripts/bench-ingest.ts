@@ -11,6 +11,7 @@
  *     minute of the worker's own CPU (the honest "per core" figure on a shared machine);
  *  3. idle end-to-end latency: upload → the gateway reads status `analysed`, worker idle.
  * Prints a table with the load average before and after; not a test (no pass/fail).
+ *   --acceptance-only   stop after step 1;  --cpu-prof-dir=DIR   V8 CPU profile of the server
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import { readFileSync } from "node:fs";
@@ -156,7 +157,10 @@ async function main(): Promise<void> {
   }
   await new Promise<void>((resolve, reject) => spawn("env", [...vars, process.execPath, "--import", "tsx", "scripts/migrate.ts"], { cwd: ROOT, stdio: "ignore" })
     .once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`migrations failed (${code})`)))));
-  const server = spawnWith([...vars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"], ["--import", "tsx", "scripts/bench-ingest.ts", "--serve"]);
+  // --cpu-prof-dir=DIR: the server writes a V8 CPU profile there when it stops (profiling the upload path).
+  const profDir = process.argv.find((a) => a.startsWith("--cpu-prof-dir="))?.slice("--cpu-prof-dir=".length);
+  const server = spawnWith([...vars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"],
+    [...(profDir ? ["--cpu-prof", `--cpu-prof-dir=${profDir}`] : []), "--import", "tsx", "scripts/bench-ingest.ts", "--serve"]);
   const ready = JSON.parse((await waitLine(server, /^READY (.*)$/, "the bench server"))[1]) as Ready;
   process.stderr.write("stack ready; simulating the standard record…\n");
   const rec = standardRecord();
@@ -189,6 +193,10 @@ async function main(): Promise<void> {
   const single: number[] = [];
   for (let i = 0; i < 3; i++) { const u = await upload(ready.fddKeys[0]); fddIds.push(u.id); single.push(u.ms); }
 
+  if (process.argv.includes("--acceptance-only")) {
+    console.log(`acceptance p50 ${median(lat).toFixed(0)} ms, p95 ${pct(lat, 95).toFixed(0)} ms, alone ${median(single).toFixed(0)} ms, server CPU ${serverCpuMs.toFixed(0)} ms/upload; load ${loadavg().map((x) => x.toFixed(2)).join(" ")}`);
+    return;
+  }
   // 2. Throughput: one worker drains the backlog; SSI-COV records queued while no worker runs.
   process.stderr.write(`throughput: draining ${fddIds.length} FDD/EFDD records…\n`);
   const fdd = await drain(vars, fddIds);

@@ -3,7 +3,7 @@
  * immutable and content-addressed: the key is derived from the bytes' SHA-256, so the same
  * samples uploaded twice are stored once and a reprocess reads exactly what was received.
  */
-import { createHash, webcrypto } from "node:crypto";
+import { createHash } from "node:crypto";
 
 export interface BlobStore {
   /** Store `bytes` under `key`; storing the same key again is a no-op (content addressing). */
@@ -18,14 +18,6 @@ export interface BlobStore {
 /** Lower-case hex SHA-256 of `bytes`. */
 export function sha256Hex(bytes: Uint8Array): string {
   return createHash("sha256").update(bytes).digest("hex");
-}
-
-/**
- * Lower-case hex SHA-256 of `bytes`, computed on libuv's thread pool (WebCrypto digest), so
- * a request thread stays free while megabytes are hashed. Same value as {@link sha256Hex}.
- */
-export async function sha256HexAsync(bytes: Uint8Array): Promise<string> {
-  return Buffer.from(await webcrypto.subtle.digest("SHA-256", bytes)).toString("hex");
 }
 
 /** The content-addressed key of a blob with hex SHA-256 `hash`: `sha256/<hash>`. */

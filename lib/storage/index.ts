@@ -9,7 +9,7 @@ import type { BlobStore } from "./blob-store";
 import { FsBlobStore } from "./fs-blob-store";
 import { S3BlobStore } from "./s3-blob-store";
 
-export { contentKey, sha256Hex, sha256HexAsync, type BlobStore } from "./blob-store";
+export { contentKey, sha256Hex, type BlobStore } from "./blob-store";
 
 const globalForStore = globalThis as unknown as { __modewardenBlobStore?: BlobStore };
 

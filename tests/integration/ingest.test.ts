@@ -4,7 +4,7 @@
  * kept from a refused upload, the same record stored once.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { randomUUID } from "node:crypto";
+import { createHash, randomUUID } from "node:crypto";
 import * as recordsRoute from "@/app/api/v1/records/route";
 import { resetEnvForTests } from "@/lib/config/env";
 import { closeDb, db } from "@/lib/db/knex";
@@ -95,6 +95,15 @@ describe("POST /api/v1/records — accepted uploads", () => {
     expect(zipped.body.record).toMatchObject({ dataFormat: "f32le", sampleCount: N, units: "mg" });
     // Same samples as float32: the content hash (of the decompressed data) is the same.
     expect(zipped.body.record!.contentHash).toBe(raw.body.record!.contentHash);
+    // …and it is the SHA-256 of those bytes [FIPS 180-4], here from Node's one-shot hash.
+    expect(raw.body.record!.contentHash).toBe(createHash("sha256").update(f32Of(samples)).digest("hex"));
+    // A gzip file may hold several members, decompressed one after the other [RFC 1952 §2.2]:
+    // the same samples again (200), however they were split.
+    const plain = f32Of(samples);
+    const members = Buffer.concat([gzip(plain.subarray(0, 16 * 7)), gzip(plain.subarray(16 * 7))]);
+    const split = await upload({ meta: metaOf({ recordId: raw.body.record!.gatewayRecordId }), data: members, type: "application/octet-stream" });
+    expect(split.status).toBe(200);
+    expect(split.body.record!.id).toBe(raw.body.record!.id);
     const row = await db()("records").where({ id: raw.body.record!.id }).first("blob_key");
     const stored = decodeSamples((await blobStore().get(row.blob_key))!, "f32le", CHANNELS);
     // float32 rounding: relative error ≤ 2⁻²⁴ (IEEE 754 binary32 unit roundoff).
@@ -201,6 +210,14 @@ describe("POST /api/v1/records — refusals keep nothing", () => {
       .toMatchObject({ rule: "non_finite", sample: 11, channelIndex: 1 });
     expect((await refused({ meta: metaOf(), data: f32Of(samples).subarray(0, 4 * 4 * 300 + 6), type: "application/octet-stream" }, 422, "unprocessable")).details)
       .toMatchObject({ rule: "ragged_rows" });
+    // IEEE 754 binary32: exponent bits all ones is ±Infinity or NaN (quiet 0x7fc00000,
+    // signalling 0x7f800001, negative 0xffc00000); gzip does not hide them.
+    for (const [bits, sample, channel] of [[0x7fc00000, 1, 0], [0x7f800001, 500, 3], [0xff800000, 999, 2], [0xffc00000, 1000, 3]] as const) {
+      const bad = f32Of(samples);
+      bad.writeUInt32LE(bits, 4 * (4 * (sample - 1) + channel));
+      expect((await refused({ meta: metaOf(), data: gzip(bad), type: "application/octet-stream" }, 422, "unprocessable")).details)
+        .toMatchObject({ rule: "non_finite", sample, channelIndex: channel });
+    }
     const rate = await refused({ meta: metaOf({ sampleRateHz: 5 }), data: csv }, 422, "unprocessable");
     expect(rate.details.fieldErrors).toHaveProperty(["meta.sampleRateHz"]);
     const units = await refused({ meta: metaOf({ units: "cm/s2", extra: 1 }), data: csv }, 422, "unprocessable");

@@ -6,12 +6,9 @@
  *  - application/octet-stream: float32 little-endian, interleaved sample by sample;
  *  - either gzip-compressed, recognised by the gzip header (1f 8b 08).
  */
-import { promisify } from "node:util";
-import { gunzip } from "node:zlib";
+import { createGunzip } from "node:zlib";
 import { AppError } from "@/lib/http/errors";
 import type { DataFormat } from "@/lib/domain/records";
-
-const gunzipAsync = promisify(gunzip);
 
 /** Fewest samples per channel an upload may carry (the identification engine's minimum). */
 export const MIN_SAMPLES = 256;
@@ -35,25 +32,90 @@ export function dataFormatOf(mimeType: string): DataFormat {
   });
 }
 
-const isGzip = (b: Uint8Array) => b.length >= 3 && b[0] === 0x1f && b[1] === 0x8b && b[2] === 0x08;
+/** The first (or last) `n` bytes of a list of chunks. */
+function edgeBytes(chunks: Buffer[], n: number, fromEnd: boolean): Buffer {
+  const picked: Buffer[] = [];
+  let have = 0;
+  for (let i = 0; i < chunks.length && have < n; i++) {
+    const c = chunks[fromEnd ? chunks.length - 1 - i : i];
+    picked.push(c);
+    have += c.length;
+  }
+  const joined = Buffer.concat(fromEnd ? picked.reverse() : picked);
+  return fromEnd ? joined.subarray(Math.max(0, joined.length - n)) : joined.subarray(0, n);
+}
 
 /**
- * Undo gzip when the bytes start with a gzip header. For float32 data a failed inflate
- * means the bytes were raw samples after all (a valid gzip stream with matching CRC cannot
- * arise from sample values by chance); for CSV it is a broken upload (400).
+ * One buffer for a list of chunks without copying when they are consecutive views of one
+ * ArrayBuffer (zlib's output slices of one large output chunk); else a joined copy.
+ */
+function joinChunks(chunks: Buffer[], total: number): Buffer {
+  if (chunks.length === 0) return Buffer.alloc(0);
+  if (chunks.length === 1) return chunks[0];
+  const first = chunks[0];
+  let end = first.byteOffset;
+  const contiguous = chunks.every((c) => {
+    const ok = c.buffer === first.buffer && c.byteOffset === end;
+    end += c.length;
+    return ok;
+  });
+  return contiguous && total > 0 ? Buffer.from(first.buffer, first.byteOffset, total) : Buffer.concat(chunks, total);
+}
+
+/**
+ * zlib output chunk for inflating: the size the gzip trailer states (ISIZE, the last four
+ * bytes, RFC 1952 §2.3.1), so a record inflates into one output buffer instead of hundreds
+ * of 16 KiB ones (each a main-thread callback, a copy and garbage). Only a hint: clamped to
+ * [64 KiB, 16 MiB], to the decoded limit and to 1032 × the compressed size (deflate's
+ * largest ratio, zlib technical details), so a forged trailer cannot make it allocate much.
+ */
+function outputChunkSize(chunks: Buffer[], compressedBytes: number, maxDecodedBytes: number): number {
+  const t = edgeBytes(chunks, 4, true);
+  const isize = t.length === 4 ? t.readUInt32LE(0) : 0;
+  const cap = Math.min(16 * 1024 * 1024, maxDecodedBytes + 1, 1032 * compressedBytes);
+  return Math.max(64 * 1024, Math.min(isize + 1, cap));
+}
+
+const tooLargeDecoded = (maxDecodedBytes: number) => new AppError("payload_too_large", `The data exceeds ${maxDecodedBytes} bytes once decompressed.`, {
+  details: { field: "data", rule: "max_decoded_bytes", limitBytes: maxDecodedBytes },
+});
+
+/** Gunzip the chunks as a stream (no joined copy of the input), refusing output past the limit. */
+function gunzipChunks(chunks: Buffer[], compressedBytes: number, maxDecodedBytes: number): Promise<Buffer> {
+  return new Promise((resolve, reject) => {
+    const z = createGunzip({ chunkSize: outputChunkSize(chunks, compressedBytes, maxDecodedBytes) });
+    const out: Buffer[] = [];
+    let total = 0;
+    z.on("data", (c: Buffer) => {
+      total += c.length;
+      if (total > maxDecodedBytes) {
+        z.destroy();
+        reject(tooLargeDecoded(maxDecodedBytes));
+      } else out.push(c);
+    });
+    z.on("error", reject);
+    z.on("end", () => resolve(joinChunks(out, total)));
+    for (const c of chunks) z.write(c);
+    z.end();
+  });
+}
+
+/**
+ * Undo gzip when the data starts with a gzip header (1f 8b 08), given as received in chunks.
+ * For float32 data a failed inflate means the bytes were raw samples after all (a valid gzip
+ * stream with matching CRC cannot arise from sample values by chance); for CSV it is a broken
+ * upload (400).
  * @throws AppError 413 when the inflated data exceeds `maxDecodedBytes`, 400 for broken gzip.
  */
-export async function inflateIfGzip(bytes: Buffer, format: DataFormat, maxDecodedBytes: number): Promise<Buffer> {
-  if (!isGzip(bytes)) return bytes;
+export async function inflateIfGzip(chunks: Buffer[], format: DataFormat, maxDecodedBytes: number): Promise<Buffer> {
+  const total = chunks.reduce((n, c) => n + c.length, 0);
+  const head = edgeBytes(chunks, 3, false);
+  if (!(head.length === 3 && head[0] === 0x1f && head[1] === 0x8b && head[2] === 0x08)) return joinChunks(chunks, total);
   try {
-    return await gunzipAsync(bytes, { maxOutputLength: maxDecodedBytes });
+    return await gunzipChunks(chunks, total, maxDecodedBytes);
   } catch (e) {
-    if (typeof e === "object" && e !== null && (e as { code?: unknown }).code === "ERR_BUFFER_TOO_LARGE") {
-      throw new AppError("payload_too_large", `The data exceeds ${maxDecodedBytes} bytes once decompressed.`, {
-        details: { field: "data", rule: "max_decoded_bytes", limitBytes: maxDecodedBytes },
-      });
-    }
-    if (format === "f32le") return bytes;
+    if (e instanceof AppError) throw e;
+    if (format === "f32le") return joinChunks(chunks, total);
     throw new AppError("bad_request", "The data part starts like gzip but does not decompress.", {
       details: { field: "data", rule: "gzip" }, fieldErrors: { data: ["The data part starts like gzip but does not decompress."] },
     });
