@@ -70,6 +70,9 @@ describe("Owner: needs attention and the Asset Overview", () => {
     expect(await page.locator("[data-testid=channel-timeline] [data-channel]").count()).toBe(8);
     expect(await page.locator("[data-testid=channel-timeline] [data-channel=A1] [data-day]").count()).toBe(30);
     expect(await page.locator("[data-testid=overview-alerts] a[href^='/alerts/']").count()).toBe(1);
+    // The serviceability indication (H5's panel) sits in its slot: a footbridge's.
+    expect(await page.locator("[data-testid=serviceability-slot] [data-testid=serviceability-panel]").getAttribute("data-family")).toBe("footbridge");
+    await page.locator("[data-testid=portfolio-map][data-rendered-assets='1']").waitFor();
     await screenshot(page, "overview-heron-reach");
   });
 

@@ -12,6 +12,8 @@ const KIND_STYLE: Record<AttentionKind, { label: string; dot: string }> = {
   provisional_baseline: { label: "Baseline", dot: "var(--condition-commissioning-stroke)" },
 };
 
+const COMPACT: ReadonlySet<AttentionKind> = new Set(["no_baseline", "provisional_baseline"]);
+
 /** The "needs attention" list: alerts, warnings, silence, sensor data issues and baselines, each with a link. */
 export function NeedsAttention({ items, timeZone, className }: { items: AttentionItem[]; timeZone: string; className?: string }) {
   return (
@@ -26,18 +28,29 @@ export function NeedsAttention({ items, timeZone, className }: { items: Attentio
         <ul className="min-h-0 flex-1 divide-y divide-line/70 overflow-y-auto">
           {items.map((it, i) => (
             <li key={`${it.kind}-${it.assetId}-${i}`} data-attention-kind={it.kind} data-asset-id={it.assetId}>
-              <Link href={it.href} className="group flex gap-3 px-4 py-2.5 hover:bg-canvas">
-                <span aria-hidden className="mt-1.5 inline-block h-2.5 w-2.5 shrink-0 rounded-full" style={{ background: KIND_STYLE[it.kind].dot }} />
-                <span className="min-w-0 flex-1">
-                  <span className="flex flex-wrap items-baseline gap-x-2">
+              {COMPACT.has(it.kind) ? (
+                // Baseline items are less urgent: one line each, the detail as a tooltip.
+                <Link href={it.href} title={it.detail} className="group flex items-center gap-3 px-4 py-1.5 text-sm hover:bg-canvas">
+                  <span aria-hidden className="inline-block h-2.5 w-2.5 shrink-0 rounded-full" style={{ background: KIND_STYLE[it.kind].dot }} />
+                  <span className="min-w-0 flex-1 truncate">
                     <span className="font-medium text-ink group-hover:text-accent group-hover:underline">{it.assetName}</span>
-                    <span className="text-xs font-medium uppercase tracking-wide text-muted">{KIND_STYLE[it.kind].label}</span>
-                    {it.at ? <time dateTime={it.at} className="ml-auto text-xs text-muted tabular-nums">{formatDateTime(it.at, timeZone)}</time> : null}
+                    <span className="text-muted"> · {it.title.toLowerCase()}</span>
                   </span>
-                  <span className="block text-sm">{it.title}</span>
-                  <span className="block text-xs text-muted">{it.detail}</span>
-                </span>
-              </Link>
+                </Link>
+              ) : (
+                <Link href={it.href} className="group flex gap-3 px-4 py-2.5 hover:bg-canvas">
+                  <span aria-hidden className="mt-1.5 inline-block h-2.5 w-2.5 shrink-0 rounded-full" style={{ background: KIND_STYLE[it.kind].dot }} />
+                  <span className="min-w-0 flex-1">
+                    <span className="flex flex-wrap items-baseline gap-x-2">
+                      <span className="font-medium text-ink group-hover:text-accent group-hover:underline">{it.assetName}</span>
+                      <span className="text-xs font-medium uppercase tracking-wide text-muted">{KIND_STYLE[it.kind].label}</span>
+                      {it.at ? <time dateTime={it.at} className="ml-auto text-xs text-muted tabular-nums">{formatDateTime(it.at, timeZone)}</time> : null}
+                    </span>
+                    <span className="block text-sm">{it.title}</span>
+                    <span className="block text-xs text-muted">{it.detail}</span>
+                  </span>
+                </Link>
+              )}
             </li>
           ))}
         </ul>

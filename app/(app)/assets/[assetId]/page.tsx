@@ -3,11 +3,15 @@ import { connection } from "next/server";
 import { can } from "@/lib/auth/permissions";
 import { env } from "@/lib/config/env";
 import { toAssetSummary } from "@/lib/domain/types";
+import { logUnknownError } from "@/lib/http/log";
 import { getDriftView } from "@/lib/services/drift/drift-view.service";
 import { OVERVIEW_CAUTION } from "@/lib/services/overview/caution";
 import { describeCondition } from "@/lib/services/overview/condition-reason";
 import { AVAILABILITY_DAYS, getAssetChanges, getAssetOverview } from "@/lib/services/overview/overview.service";
 import { describeChannelIssues, localDay, startOfLocalDay } from "@/lib/services/overview/timeline";
+import { getServiceabilityView } from "@/lib/services/serviceability/serviceability.service";
+import { ServiceabilityPanel } from "@/components/serviceability/serviceability-panel";
+import { Notice } from "@/components/ui/notice";
 import { orNotFound } from "../../_lib/or-not-found";
 import { pageActor } from "../../_lib/page-actor";
 import { AssetLocationMap } from "./_components/asset-location-map";
@@ -41,9 +45,11 @@ export default async function AssetOverviewPage({
   const overview = await orNotFound(getAssetOverview(actor, assetId, { now }));
   const { asset, timeZone: tz, availability } = overview;
   const since = isDay(sp.since) ? sp.since : localDay(new Date(now.getTime() - CHANGES_DEFAULT_DAYS * DAY_MS), tz);
-  const [view, changes] = await Promise.all([
+  const [view, changes, serviceability] = await Promise.all([
     orNotFound(getDriftView(actor, asset.id, {}, { maxPointsPerMode: 10, nowMs: now.getTime() })),
     orNotFound(getAssetChanges(actor, asset.id, startOfLocalDay(since, tz))),
+    // The serviceability indication is secondary here: a failure shows a notice, not an error page.
+    getServiceabilityView(actor, asset.id, { days: AVAILABILITY_DAYS, now }).catch((e: unknown) => ({ failed: logUnknownError(e, { assetId: asset.id, section: "overview-serviceability" }) })),
   ]);
 
   const reason = describeCondition(view, {
@@ -85,9 +91,12 @@ export default async function AssetOverviewPage({
 
       <ModeTable rows={modeRows} t2={lastT2} timeZone={tz} windowDays={AVAILABILITY_DAYS} hasBaseline={view.baseline !== null} />
 
-      {/* ── Serviceability slot (issue 6 §2, H5): <ServiceabilityPanel> from
-            components/serviceability/serviceability-panel.tsx goes here once it exists. ── */}
-      <div data-testid="serviceability-slot" />
+      {/* ── Serviceability (issue 6 §2): H5's ServiceabilityPanel, compact, over the availability window. ── */}
+      <div data-testid="serviceability-slot">
+        {"failed" in serviceability
+          ? <Notice tone="error">The serviceability indication could not be computed (ref {serviceability.failed}).</Notice>
+          : <ServiceabilityPanel view={serviceability} periodLabel={`last ${AVAILABILITY_DAYS} days`} compact />}
+      </div>
 
       <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <AvailabilityPanel

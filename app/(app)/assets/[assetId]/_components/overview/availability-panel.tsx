@@ -84,7 +84,7 @@ function ChannelTimeline({ rows, days }: { rows: ChannelTimelineRow[]; days: str
         <div aria-hidden />
         {days.map((d, i) => (
           <div key={d} aria-hidden className="whitespace-nowrap text-center text-[10px] leading-3 text-muted">
-            {i % 7 === 0 || i === days.length - 1 ? shortDay(d) : ""}
+            {(i % 7 === 0 && i < days.length - 4) || i === days.length - 1 ? shortDay(d) : ""}
           </div>
         ))}
       </div>
