@@ -185,6 +185,7 @@ async function main() {
   if (needsServices && process.getuid?.() !== 0) throw new Error("npm test runs as root (it manages a PostgreSQL cluster through runuser)");
   await ensureNodeModules(root);
   if (needsServices) await ensureDebianPackage("/usr/bin/redis-server", "redis-server");
+  if (needsServices) await ensureDebianPackage("/usr/bin/pdftotext", "poppler-utils");
   cfg = testConfig(root);
   if (stages.includes("e2e")) await ensureDebianPackage(cfg.chromium, "chromium");
   if (needsServices) {

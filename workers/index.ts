@@ -5,16 +5,21 @@
  */
 import type { Worker } from "bullmq";
 import { createRedisConnection } from "@/lib/jobs/connection";
-import { closeQueues } from "@/lib/jobs/queues";
+import { closeQueues, getQueue, QUEUE_NAMES } from "@/lib/jobs/queues";
+import { scheduleMonthlyReports } from "@/lib/services/reports/monthly-schedule";
 import { closeMailTransport } from "@/lib/email/transport";
 import { closeDb } from "@/lib/db/knex";
 import { createMailWorker } from "./mail.worker";
 import { createAnalysisWorker, startRecordSweeper } from "./analysis.worker";
 import { createDriftWorker } from "./drift.worker";
+import { createReportsWorker } from "./reports.worker";
 
 const connection = createRedisConnection();
-const workers: Worker[] = [createMailWorker(connection), createAnalysisWorker(connection), createDriftWorker(connection)];
+const workers: Worker[] = [createMailWorker(connection), createAnalysisWorker(connection), createDriftWorker(connection), createReportsWorker(connection)];
 const stopSweeper = startRecordSweeper();
+// The monthly owners' report: one repeatable job (06:00 UTC on the 1st); re-registering is idempotent.
+void scheduleMonthlyReports(getQueue(QUEUE_NAMES.reports)).catch((err: unknown) =>
+  console.error(`monthly report schedule failed: ${err instanceof Error ? err.message : String(err)}`));
 
 for (const w of workers) {
   w.on("failed", (job, err) => console.error(`${w.name} job ${job?.id ?? "?"} failed (attempt ${job?.attemptsMade ?? "?"}): ${err.message}`));

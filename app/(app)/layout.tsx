@@ -27,7 +27,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
   return (
     <Providers>
       <div className="flex min-h-screen flex-col">
-        <header className="bg-ink text-white">
+        <header className="bg-ink text-white print:hidden">
           <div className="mx-auto flex h-13 max-w-[1400px] items-center gap-5 px-5">
             <Link href="/" className="shrink-0 text-white">
               <Wordmark />

@@ -10,6 +10,8 @@ export interface MailMessage {
   subject: string;
   text: string;
   html?: string;
+  /** Files as base64 (the mail job's payload form). */
+  attachments?: { filename: string; contentType: string; contentBase64: string }[];
 }
 
 let transporter: Transporter | null = null;
@@ -30,7 +32,14 @@ export function mailTransport(): Transporter {
 
 /** Send one message now (the mail worker calls this). */
 export async function sendMail(message: MailMessage): Promise<{ messageId: string }> {
-  const info = await mailTransport().sendMail({ from: env().MAIL_FROM, ...message });
+  const { attachments, ...rest } = message;
+  const info = await mailTransport().sendMail({
+    from: env().MAIL_FROM,
+    ...rest,
+    ...(attachments?.length
+      ? { attachments: attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.contentBase64, "base64") })) }
+      : {}),
+  });
   return { messageId: String(info.messageId) };
 }
 

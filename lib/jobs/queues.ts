@@ -13,8 +13,17 @@ export const QUEUE_NAMES = {
   mail: "mail",
   analysis: "analysis",
   drift: "drift",
+  reports: "reports",
 } as const;
 export type QueueName = (typeof QUEUE_NAMES)[keyof typeof QUEUE_NAMES];
+
+/** A file attached to an e-mail, carried in the job as base64 (a monthly report PDF: tens of kB). */
+export const MailAttachment = z.object({
+  filename: z.string().min(1).max(200),
+  contentType: z.string().min(1).max(200),
+  contentBase64: z.string().min(1),
+});
+export type MailAttachment = z.infer<typeof MailAttachment>;
 
 /** Payload of a `mail` job: one message, already rendered by lib/email/templates. */
 export const MailJob = z.object({
@@ -22,6 +31,7 @@ export const MailJob = z.object({
   subject: z.string().min(1).max(998),
   text: z.string(),
   html: z.string().optional(),
+  attachments: z.array(MailAttachment).max(5).optional(),
 });
 export type MailJob = z.infer<typeof MailJob>;
 

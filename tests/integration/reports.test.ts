@@ -18,7 +18,7 @@ import { closeDb } from "@/lib/db/knex";
 import type { Asset } from "@/lib/domain/types";
 import { closeMailTransport } from "@/lib/email/transport";
 import { createRedisConnection } from "@/lib/jobs/connection";
-import { closeQueues, MailJob } from "@/lib/jobs/queues";
+import { closeQueues } from "@/lib/jobs/queues";
 import { REPORT_CAUTION } from "@/lib/reports/caution";
 import { MODAL_HISTORY_DICTIONARY } from "@/lib/reports/modal-history-csv";
 import { createAsset } from "@/lib/services/assets/asset.service";
@@ -195,7 +195,7 @@ describe("monthly reports", () => {
   });
 
   // The mail job schema must carry attachments for the PDF to reach the message (lib/jobs/queues.ts, lead).
-  it.skipIf(!("attachments" in MailJob.shape))("attaches the PDF report to each owner's e-mail", async () => {
+  it("attaches the PDF report to each owner's e-mail", async () => {
     // The month before: its mail jobs are not keyed yet, so they are sent.
     const d = new Date(tEnd);
     const before = new Date(Date.UTC(d.getUTCFullYear(), d.getUTCMonth() - 1, 1)).toISOString().slice(0, 7);

@@ -4,9 +4,10 @@
  * sends the previous month's reports. Upserting the scheduler is idempotent (same id).
  */
 import type { Queue } from "bullmq";
+import { QUEUE_NAMES } from "@/lib/jobs/queues";
 
-/** Queue name; the lead mirrors it as QUEUE_NAMES.reports in lib/jobs/queues.ts. */
-export const REPORTS_QUEUE = "reports";
+/** Queue name (one list of queues: lib/jobs/queues.ts). */
+export const REPORTS_QUEUE = QUEUE_NAMES.reports;
 export const MONTHLY_SCHEDULER_ID = "monthly-reports";
 /** Cron: minute 0, hour 6, day 1, every month (UTC). */
 export const MONTHLY_CRON = "0 6 1 * *";

@@ -22,7 +22,7 @@ export function AssetTabs({ assetId }: { assetId: string }) {
     { href: `${base}/gateways`, label: "Gateways" },
   ];
   return (
-    <nav aria-label="Asset sections" className="mb-5 flex gap-1 overflow-x-auto border-b border-line">
+    <nav aria-label="Asset sections" className="mb-5 flex gap-1 overflow-x-auto border-b border-line print:hidden">
       {tabs.map((t) => {
         const active = t.href === base ? pathname === base || pathname === `${base}/edit` : pathname.startsWith(t.href);
         return (
