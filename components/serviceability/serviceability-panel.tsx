@@ -13,7 +13,7 @@ import { Table, Td, Th } from "@/components/ui/table";
 import { hz, mps, mps2, pct } from "./format";
 
 const RISK_TEXT = { high: "in resonance range", second_harmonic: "in 2nd-harmonic range", outside: "outside ranges" } as const;
-const DAMPING_TEXT = { below_guidance: "below guidance", within_guidance: "within guidance", above_guidance: "above guidance" } as const;
+const DAMPING_TEXT = { below_guidance: "below guidance minimum", within_guidance: "between minimum and mean", above_guidance: "above guidance mean" } as const;
 
 function Tag({ tone, children }: { tone: "warn" | "ok" | "info"; children: React.ReactNode }) {
   const cls = tone === "warn" ? "bg-danger-soft text-danger" : tone === "ok" ? "bg-success-soft text-success" : "bg-sunken text-muted";

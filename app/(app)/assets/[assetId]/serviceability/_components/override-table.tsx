@@ -11,15 +11,17 @@ import { setOverrideAction } from "../actions";
 
 type Row = ServiceabilityValues["table"][number];
 
+const withUnit = (v: number, unit: string) => (unit === "–" ? String(v) : `${v} ${unit}`);
+
 function OverrideRow({ assetId, row, canEdit }: { assetId: string; row: Row; canEdit: boolean }) {
   const { onSubmit, pending, fieldErrors, message } = useFormAction(setOverrideAction, { refreshOnSuccess: true });
   const formId = `ov-${row.spec.key}`;
   return (
     <tr data-testid="override-row" data-key={row.spec.key}>
       <Td>{row.spec.label}<div className="text-xs text-faint">{row.spec.source}</div></Td>
-      <Td className="whitespace-nowrap">{row.spec.defaultValue} {row.spec.unit}</Td>
+      <Td className="whitespace-nowrap">{withUnit(row.spec.defaultValue, row.spec.unit)}</Td>
       <Td className="whitespace-nowrap">
-        <strong className={row.overridden ? "text-accent" : undefined}>{row.value} {row.spec.unit}</strong>
+        <strong className={row.overridden ? "text-accent" : undefined}>{withUnit(row.value, row.spec.unit)}</strong>
         {row.overridden ? <div className="text-xs text-muted">override{row.note ? `: ${row.note}` : ""}</div> : null}
       </Td>
       {canEdit ? (
