@@ -73,7 +73,8 @@ function outputChunkSize(chunks: Buffer[], compressedBytes: number, maxDecodedBy
   const t = edgeBytes(chunks, 4, true);
   const isize = t.length === 4 ? t.readUInt32LE(0) : 0;
   const cap = Math.min(16 * 1024 * 1024, maxDecodedBytes + 1, 1032 * compressedBytes);
-  return Math.max(64 * 1024, Math.min(isize + 1, cap));
+  // + 64 KiB: room for earlier small members of a multi-member file (ISIZE is the last member's).
+  return Math.max(64 * 1024, Math.min(isize + 64 * 1024, cap));
 }
 
 const tooLargeDecoded = (maxDecodedBytes: number) => new AppError("payload_too_large", `The data exceeds ${maxDecodedBytes} bytes once decompressed.`, {
