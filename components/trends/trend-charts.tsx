@@ -69,21 +69,49 @@ function useMarkers(view: TrendsView, id: string) {
   )], [view, id]);
 }
 
+/**
+ * The prediction band per UTC day: the lowest lower and highest upper edge of the records'
+ * ±3 s bands that day (the prediction follows the daily temperature cycle, so a per-record
+ * band would be a comb), and the day's mean prediction.
+ */
+function dailyBand(mode: TrendMode): { x: number; lo: number; hi: number; mean: number }[] {
+  const out: { x: number; lo: number; hi: number; mean: number }[] = [];
+  let day = Number.NaN;
+  let n = 0;
+  for (const p of mode.points) {
+    if (p.predictedHz === null || p.bandLowHz === null || p.bandHighHz === null) continue;
+    const d = Math.floor(p.atMs / DAY);
+    if (d !== day) {
+      if (n > 0) out[out.length - 1].mean /= n;
+      out.push({ x: d * DAY + DAY / 2, lo: p.bandLowHz, hi: p.bandHighHz, mean: 0 });
+      day = d;
+      n = 0;
+    }
+    const cur = out[out.length - 1];
+    cur.lo = Math.min(cur.lo, p.bandLowHz);
+    cur.hi = Math.max(cur.hi, p.bandHighHz);
+    cur.mean += p.predictedHz;
+    n++;
+  }
+  if (n > 0) out[out.length - 1].mean /= n;
+  return out;
+}
+
 /** Frequency against time, coloured by temperature, with the prediction and its ±3 s band. */
 export function FrequencyTimeChart({ mode, view, csvBase, tRange }: { mode: TrendMode; view: TrendsView; csvBase: string; tRange: [number, number] }) {
   const plugins = useMarkers(view, `ft-${mode.trackedModeId}`);
   const data = useMemo<ChartData<"scatter", Pt[]>>(() => {
     const inEnv = mode.points.filter((p) => !p.outOfEnvelope);
-    const pred = mode.points.filter((p) => p.predictedHz !== null);
+    const days = dailyBand(mode);
     const ds: Ds[] = [];
-    if (pred.length > 0) {
-      ds.push(line("Band low", pred.map((p) => ({ x: p.atMs, y: p.bandLowHz ?? Number.NaN })), TREND.bandEdge, { borderWidth: 0.5, order: 4 }));
-      ds.push(line("Band high", pred.map((p) => ({ x: p.atMs, y: p.bandHighHz ?? Number.NaN })), TREND.bandEdge, { borderWidth: 0.5, fill: "-1", backgroundColor: TREND.band, order: 4 }));
-      ds.push(line("Prediction", pred.map((p) => ({ x: p.atMs, y: p.predictedHz ?? Number.NaN })), TREND.prediction, { borderWidth: 0.8, order: 3 }));
+    if (days.length > 0) {
+      ds.push(line("Band low", days.map((d) => ({ x: d.x, y: d.lo })), TREND.bandEdge, { borderWidth: 0.6, order: 4 }));
+      ds.push(line("Band high", days.map((d) => ({ x: d.x, y: d.hi })), TREND.bandEdge, { borderWidth: 0.6, fill: "-1", backgroundColor: TREND.band, order: 4 }));
+      ds.push(line("Prediction", days.map((d) => ({ x: d.x, y: d.mean })), TREND.prediction, { borderWidth: 1.2, order: 3 }));
     }
     ds.push({
       label: "Measured", data: inEnv.map((p) => ({ x: p.atMs, y: p.frequencyHz })), showLine: false, order: 1,
-      pointRadius: 1.8, pointHoverRadius: 4, borderWidth: 0,
+      pointRadius: 2, pointHoverRadius: 4, borderWidth: 0,
       pointBackgroundColor: inEnv.map((p) => temperatureColour(p.temperatureC, tRange[0], tRange[1])),
     });
     ds.push({ ...crosses(ENVELOPE_LABEL, mode.points.filter((p) => p.outOfEnvelope).map((p) => ({ x: p.atMs, y: p.frequencyHz }))), order: 0 });
@@ -93,8 +121,8 @@ export function FrequencyTimeChart({ mode, view, csvBase, tRange }: { mode: Tren
   const legend: LegendItem[] = [
     { label: `Measured, colour = temperature ${tRange[0].toFixed(0)}…${tRange[1].toFixed(0)} °C`, colour: TEMPERATURE_GRADIENT, kind: "gradient" },
     ...(mode.model ? [
-      { label: "Baseline prediction", colour: TREND.prediction, kind: "line" as const },
-      { label: "Prediction band (±3 s)", colour: TREND.band, kind: "area" as const },
+      { label: "Baseline prediction (daily mean)", colour: TREND.prediction, kind: "line" as const },
+      { label: "Prediction band (±3 s, daily range)", colour: TREND.band, kind: "area" as const },
     ] : []),
     { label: ENVELOPE_LABEL, colour: TREND.envelope, kind: "cross" },
     ...(view.alertTimesMs.length > 0 ? [{ label: "Alert raised", colour: TREND.alert, kind: "dash" as const }] : []),
@@ -234,7 +262,7 @@ export function DampingChart({ mode, view, csvBase }: { mode: TrendMode; view: T
   ];
   return (
     <ChartCard
-      title="Damping trend (advisory)" legend={legend} csvHref={csv(csvBase, "damping")} testId="chart-damping"
+      title="Damping trend (advisory)" legend={legend} csvHref={csv(csvBase, "damping")} testId="chart-damping" className="lg:col-span-2"
       note="Advisory only: damping from short ambient records scatters by ±15–40 %, so these wide limits flag gross changes for a look and never change the asset's condition."
     >
       {mode.damping.points.length > 0

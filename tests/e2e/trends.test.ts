@@ -44,7 +44,7 @@ describe("Trends screens (engineer)", () => {
     }
     const legends = await page.getByTestId("chart-legend").allInnerTexts();
     const all = legends.join("\n");
-    for (const text of ["Baseline prediction", "Prediction band (±3 s)", "Out of envelope, no decision", "EWMA (λ = 0.1)", "Control limits", "Alert raised", "Advisory limits", "UCL ="]) {
+    for (const text of ["Baseline prediction", "Prediction band (±3 s", "Out of envelope, no decision", "EWMA (λ = 0.1)", "Control limits", "Alert raised", "Advisory limits", "UCL ="]) {
       expect(all).toContain(text);
     }
     // Heron Reach's stiffness loss: the demo opens in alert with an alert raised.

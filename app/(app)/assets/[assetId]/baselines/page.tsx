@@ -149,7 +149,7 @@ export default async function BaselinesPage({ params }: { params: Promise<{ asse
       {active ? (
         <Panel title={`Active baseline v${active.version} (${active.status})`}>
           {active.status === "provisional" ? (
-            <Notice className="mb-3">Provisional: the training window covers less than a full year of seasons, so some temperatures lie outside its envelope (“out of envelope, no decision”).</Notice>
+            <Notice className="mb-3">Provisional: the training window covers less than a full year of seasons, so temperatures of the missing seasons may fall outside its envelope (“out of envelope, no decision”).</Notice>
           ) : null}
           <ModelTable b={active} />
         </Panel>

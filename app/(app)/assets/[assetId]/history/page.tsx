@@ -4,7 +4,6 @@ import { connection } from "next/server";
 import { Panel } from "@/components/ui/panel";
 import { can } from "@/lib/auth/permissions";
 import { getAsset } from "@/lib/services/assets/asset.service";
-import { getOrganisation } from "@/lib/services/accounts/profile.service";
 import { orNotFound } from "../../../_lib/or-not-found";
 import { pageActor } from "../../../_lib/page-actor";
 import { HistoryImport } from "./_components/history-import";
@@ -21,7 +20,6 @@ export default async function HistoryPage({ params }: { params: Promise<{ assetI
   const actor = await pageActor();
   const asset = await orNotFound(getAsset(actor, assetId));
   if (!can(actor.role, "baseline:write")) redirect(`/assets/${asset.id}/trends`);
-  const tz = (await getOrganisation(actor)).timeZone;
   return (
     <div className="space-y-4">
       <Panel title="Import a modal history">
@@ -36,7 +34,7 @@ export default async function HistoryPage({ params }: { params: Promise<{ assetI
             same file imported again changes nothing.
           </p>
         </div>
-        <HistoryImport assetId={asset.id} timeZone={tz} />
+        <HistoryImport assetId={asset.id} />
       </Panel>
     </div>
   );

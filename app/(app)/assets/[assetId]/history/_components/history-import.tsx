@@ -20,7 +20,7 @@ const fmt = (v: number | null, digits: number) => (v === null ? "—" : v.toFixe
  * created, date range, first rows, every bad row with its line and reason); then confirm.
  * A file with any bad row cannot be confirmed (the import is all or nothing).
  */
-export function HistoryImport({ assetId, timeZone }: { assetId: string; timeZone: string }) {
+export function HistoryImport({ assetId }: { assetId: string }) {
   const router = useRouter();
   const [file, setFile] = useState<File | null>(null);
   const [preview, dispatchPreview, previewing] = useActionState<ActionState<Preview>, FormData>(previewHistoryAction, null);
@@ -77,8 +77,8 @@ export function HistoryImport({ assetId, timeZone }: { assetId: string; timeZone
             <div><dt className="text-xs uppercase tracking-wide text-muted">File</dt><dd className="truncate">{p.fileName}</dd></div>
             <div><dt className="text-xs uppercase tracking-wide text-muted">Valid rows</dt><dd data-testid="preview-rows">{p.rows}</dd></div>
             <div>
-              <dt className="text-xs uppercase tracking-wide text-muted">Date range</dt>
-              <dd>{p.from ? `${formatDateTime(p.from, timeZone)} – ${formatDateTime(p.to, timeZone)}` : "—"}</dd>
+              <dt className="text-xs uppercase tracking-wide text-muted">Date range (UTC)</dt>
+              <dd>{p.from ? `${formatDateTime(p.from, "UTC")} – ${formatDateTime(p.to, "UTC")}` : "—"}</dd>
             </div>
             <div><dt className="text-xs uppercase tracking-wide text-muted">Bad rows</dt><dd data-testid="preview-error-count">{p.errors.length}</dd></div>
           </dl>
