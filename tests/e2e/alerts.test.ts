@@ -109,4 +109,45 @@ describe("Alerts on a phone", () => {
     await page.goto(`${appUrl()}/alerts/${alertId}`);
     await screenshot(page, "alert-closed-phone");
   });
+
+  it("mutes an asset's alert e-mails from the Account page", async () => {
+    const { page } = b;
+    await page.goto(`${appUrl()}/account`);
+    const form = page.getByTestId("notification-form");
+    const box = form.getByRole("checkbox", { name: HERON });
+    expect(await box.isChecked()).toBe(false);
+    await box.check();
+    await form.getByRole("button", { name: "Save e-mail settings" }).click();
+    await form.getByText("Saved.").waitFor();
+    await page.reload();
+    expect(await page.getByTestId("notification-form").getByRole("checkbox", { name: HERON }).isChecked()).toBe(true);
+  });
+});
+
+describe("Alerts for an owner on a desktop", () => {
+  let b: BrowserSession;
+  beforeAll(async () => {
+    b = await openBrowser();
+    const owner = (await readDemoSignIns(b.page, appUrl())).owner;
+    await signIn(b.page, appUrl(), owner.email, owner.password);
+    await b.page.waitForURL(`${appUrl()}/`);
+  });
+  afterAll(async () => {
+    await b?.close();
+  });
+
+  it("shows the closed alert with its evidence, photo and history, and no control to change it", async () => {
+    const { page } = b;
+    await page.goto(`${appUrl()}/alerts?state=closed`);
+    await page.locator(`[data-alert-row][data-alert-asset="${HERON}"]`).first().getByRole("link").click();
+    await page.waitForURL(/\/alerts\/[0-9a-f-]{36}$/);
+    await page.getByTestId("alert-caution").waitFor();
+    await page.locator('[data-attachment="east-anchorage.png"] img').waitFor();
+    for (const name of ["Acknowledge", "Schedule inspection", "Assign", "Attach", "Add comment", "Close alert"]) {
+      expect(await page.getByRole("button", { name, exact: true }).count()).toBe(0);
+    }
+    await screenshot(page, "alert-closed-owner-desktop");
+    await page.goto(`${appUrl()}/alerts`);
+    await screenshot(page, "alerts-inbox-desktop");
+  });
 });
