@@ -217,6 +217,8 @@ describe("POST /api/v1/records — refusals keep nothing", () => {
       bad.writeUInt32LE(bits, 4 * (4 * (sample - 1) + channel));
       expect((await refused({ meta: metaOf(), data: gzip(bad), type: "application/octet-stream" }, 422, "unprocessable")).details)
         .toMatchObject({ rule: "non_finite", sample, channelIndex: channel });
+      // The worker's decoder names the same sample and channel.
+      expect(() => decodeSamples(bad, "f32le", CHANNELS)).toThrow(expect.objectContaining({ details: expect.objectContaining({ rule: "non_finite", sample, channelIndex: channel }) }));
     }
     const rate = await refused({ meta: metaOf({ sampleRateHz: 5 }), data: csv }, 422, "unprocessable");
     expect(rate.details.fieldErrors).toHaveProperty(["meta.sampleRateHz"]);
