@@ -97,7 +97,9 @@ export default async function AlertPage({ params }: { params: Promise<{ alertId:
           </Panel>
           <Panel title="Timeline">
             <Timeline names={names} timeZone={tz} events={events.map((e) => ({
-              id: e.id, kind: e.kind, at: e.at.toISOString(), actorName: e.actorUserId ? names[e.actorUserId] ?? "former member" : null, details: e.details,
+              id: e.id, kind: e.kind, at: e.at.toISOString(), actorName: e.actorUserId ? names[e.actorUserId] ?? "former member" : null,
+              // The raise event is written when the replay ran; the statistics it rests on are of the raise time.
+              details: e.kind === "raised" ? { ...e.details, pointAt: alert.raisedAt.toISOString() } : e.details,
             }))} />
           </Panel>
         </div>

@@ -8,7 +8,7 @@ const str = (v: unknown) => (typeof v === "string" ? v : null);
 function describe(e: TimelineEvent, names: Record<string, string>, timeZone: string): string | null {
   const d = e.details;
   switch (e.kind) {
-    case "raised": return str(d.rule);
+    case "raised": return [str(d.rule), str(d.pointAt) ? `(drift statistics of ${formatDate(str(d.pointAt), timeZone)})` : null].filter(Boolean).join(" ") || null;
     case "inspection_scheduled": return [str(d.at) ? `for ${formatDate(str(d.at), timeZone)}` : null, str(d.note)].filter(Boolean).join(" — ") || null;
     case "assigned": return str(d.userId) ? `to ${names[str(d.userId) ?? ""] ?? "a former member"}` : null;
     case "comment": return str(d.text);
