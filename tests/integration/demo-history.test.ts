@@ -51,7 +51,11 @@ describe("the demo history", () => {
     expect(first.results).toBe(added);
     const statuses = await db()("records").distinct("status").where("gateway_record_id", "like", `${DEMO_HISTORY_PREFIX}%`);
     expect(statuses).toEqual([{ status: "analysed" }]);
-  });
+    // Every demo record carries a wind speed and its response levels (serviceability views).
+    const levels = await db()("record_response_levels as l").join("records as r", "r.id", "l.record_id")
+      .where("r.gateway_record_id", "like", `${DEMO_HISTORY_PREFIX}%`).count<{ count: string }[]>("* as count");
+    expect(Number(levels[0].count)).toBe(added);
+  }, 240_000);
 
   it("shows the footbridge's ~2 % stiffness loss as ~1 % lower frequency at equal temperature in its last 3 weeks", async () => {
     const heron = asset("Heron Reach");

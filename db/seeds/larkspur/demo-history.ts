@@ -5,7 +5,8 @@
  *   f = f₂₀(T) · √(stiffness factor) · (1 + ε),  ε ~ N(0, 0.3 %) (estimation noise)
  * (f₂₀(T) by lib/simulate's frequencyAtTemperature; a stiffness factor k scales every frequency
  * by √k since f ∝ √(k/m) [pub: Chopra, Dynamics of Structures, SDOF chapter]), damping with
- * log-normal scatter, shapes with small noise and MAC to the tracked reference.
+ * log-normal scatter, shapes with small noise and MAC to the tracked reference; each record
+ * also carries a reported wind speed and per-channel response levels (demo values).
  *
  * Demo rows are marked: gateway record ids start with `demo-history-`, the result carries a
  * warning saying so, and the record stores no raw data (blob key `demo-history/none`, a
@@ -63,7 +64,7 @@ function macReal(a: number[], b: number[]): number {
   return aa > 0 && bb > 0 ? (ab * ab) / (aa * bb) : 0;
 }
 
-interface Rows { records: object[]; results: object[]; modes: object[]; assignments: object[] }
+interface Rows { records: object[]; results: object[]; modes: object[]; assignments: object[]; levels: object[] }
 
 function displaySpectrum(freqs: { f: number; zeta: number; amp: number }[], fMax: number, rng: Rng) {
   // A coarse uniform grid plus lines around each peak (±4 half-power half-widths) so peaks stay sharp.
@@ -85,7 +86,7 @@ function displaySpectrum(freqs: { f: number; zeta: number; amp: number }[], fMax
 }
 
 function historyRows(asset: DemoAsset, model: DemoAssetModel, tracked: Map<string, string>, slots: number[], nowMs: number): Rows {
-  const out: Rows = { records: [], results: [], modes: [], assignments: [] };
+  const out: Rows = { records: [], results: [], modes: [], assignments: [], levels: [] };
   const codes = asset.channels.map((c) => c.code);
   const fMax = Math.min(SAMPLE_RATE_HZ / 2, Math.max(...model.modes.map((m) => m.f20)) * 1.6);
   for (const at of slots) {
@@ -131,10 +132,27 @@ function historyRows(asset: DemoAsset, model: DemoAssetModel, tracked: Map<strin
     }
     identified.sort((a, b) => a.f - b.f);
 
+    // Wind and deck/top response levels from their own generator, so the modal draws above
+    // (and Heron Reach's drift) do not change. Demo values: a few m/s of wind, ambient levels
+    // of a few cm/s² on the decks, and now and then a narrow-band cross-wind episode on the
+    // towers when the wind is near their critical speed.
+    const wr = createRng(seedOf(`wind:${recordId}`));
+    const windSpeedMps = Number(Math.max(0.2, 3.2 + 1.8 * wr.normal()).toFixed(1));
+    const tower = asset.kind === "mast" || asset.kind === "tower";
+    const lockIn = tower && Math.abs(windSpeedMps - 3.7) < 0.5 && wr.next() < 0.15;
+    const base = tower ? 0.01 : asset.name.startsWith("Heron") ? 0.12 : 0.05;
+    const levels = used.map((c) => {
+      const axis = (asset.channels.find((x) => x.code === c)?.direction ?? "z").replace("-", "");
+      const rms = base * (axis === "z" ? 1 : 0.4) * (0.5 + wr.next()) * (lockIn && axis !== "z" ? 5 : 1);
+      const crest = lockIn && axis !== "z" ? 1.5 : 3.5 + 0.8 * wr.next();
+      return { code: c, axis, peakMps2: r4(rms * crest), maxRms1sMps2: r4(rms * 1.8), rmsMps2: r4(rms) };
+    });
+    out.levels.push({ record_id: recordId, levels: JSON.stringify(levels) });
+
     out.records.push({
       id: recordId, organisation_id: DEMO_ORGANISATION.id, asset_id: asset.id, gateway_id: asset.gateway.id, gateway_record_id: gatewayRecordId,
       started_at: startedAt, sample_rate_hz: SAMPLE_RATE_HZ, channels: codes, units: "m/s2", temperature_c: temperatureC,
-      environment: JSON.stringify({}), content_hash: createHash("sha256").update(`demo-history:${recordId}`).digest("hex"),
+      environment: JSON.stringify({ windSpeedMps }), content_hash: createHash("sha256").update(`demo-history:${recordId}`).digest("hex"),
       blob_key: NO_RAW_SAMPLES_BLOB_KEY, data_format: "f32le", byte_size: 4 * codes.length * SAMPLE_RATE_HZ * DURATION_S,
       sample_count: SAMPLE_RATE_HZ * DURATION_S, duration_s: DURATION_S, status: "analysed", progress: 1, analysed_settings_version: 1,
       created_at: new Date(at + DURATION_S * 1000 + 400), updated_at: doneAt,
@@ -208,6 +226,7 @@ export async function seedDemoHistory(knex: Knex, opts: DemoHistoryOptions = {})
       await insertChunks(trx, "analysis_results", rows.results, ["record_id", "settings_version"]);
       await insertChunks(trx, "identified_modes", rows.modes, ["id"]);
       await insertChunks(trx, "mode_assignments", rows.assignments, ["id"]);
+      await insertChunks(trx, "record_response_levels", rows.levels, ["record_id"]);
       added += slots.length;
     });
   }

@@ -11,6 +11,7 @@ import { GATEWAY_KEY_PREFIX, hashSecret } from "../../../lib/auth/tokens";
 import { DEMO_ORGANISATION, DEMO_SIGN_INS } from "../demo-users";
 import { DEMO_ASSETS, DEMO_USER_IDS } from "./data";
 import { seedDemoBaselines } from "./demo-baselines";
+import { seedDemoDesign } from "./demo-design";
 import { seedDemoHistory } from "./demo-history";
 
 /**
@@ -85,6 +86,8 @@ export async function seedLarkspurDemo(knex: Knex): Promise<void> {
   });
   // About a year of analysed history per asset (skips what is already there).
   await seedDemoHistory(knex);
+  // Design modes and serviceability inputs (after the tracked modes exist).
+  await seedDemoDesign(knex);
   // Baselines on the first nine months, then the drift replay that sets each condition.
   await seedDemoBaselines(knex);
 }
