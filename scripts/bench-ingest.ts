@@ -11,7 +11,7 @@
  *     minute of the worker's own CPU (the honest "per core" figure on a shared machine);
  *  3. idle end-to-end latency: upload → the gateway reads status `analysed`, worker idle.
  * Prints a table with the load average before and after; not a test (no pass/fail).
- *   --acceptance-only   stop after step 1;  --cpu-prof-dir=DIR   V8 CPU profile of the server
+ *   --acceptance-only   stop after step 1;  --cpu-prof-dir=DIR   V8 CPU profiles of the server and workers
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import { readFileSync } from "node:fs";
@@ -32,7 +32,10 @@ const BENCH_CODES = Array.from({ length: N_CH }, (_, i) => `S${String(i + 1).pad
 const benchSensorX = () => BENCH_CODES.map((_, i) => ((i + 1) * BENCH_BEAM.lengthM) / (N_CH + 1));
 
 interface Ready { port: number; fddKeys: string[]; ssiKey: string; pid: number }
-interface Answer { status: number; body: { record?: { id: string; status: string }; error?: { code: string } } }
+interface Answer {
+  status: number;
+  body: { record?: { id: string; status: string }; error?: { code: string }; analysis?: { spectral: { nperseg: number; averages: number; lineSpacingHz: number } } };
+}
 
 const ms = (t: bigint) => Number(t) / 1e6;
 const pct = (xs: number[], p: number) => { const a = [...xs].sort((x, y) => x - y); return a[Math.min(a.length - 1, Math.ceil((p / 100) * a.length) - 1)]; };
@@ -81,6 +84,12 @@ function send(port: number, method: string, path: string, key: string, payload?:
   });
 }
 
+/** --cpu-prof-dir=DIR: the server and each worker write a V8 CPU profile there when they stop. */
+function profFlags(): string[] {
+  const dir = process.argv.find((a) => a.startsWith("--cpu-prof-dir="))?.slice("--cpu-prof-dir=".length);
+  return dir ? ["--cpu-prof", `--cpu-prof-dir=${dir}`] : [];
+}
+
 /** Spawn with extra environment variables through env(1), inheriting the rest. */
 function spawnWith(vars: string[], args: string[]): ChildProcess {
   const child = spawn("env", [...vars, process.execPath, ...args], { cwd: ROOT, stdio: ["ignore", "pipe", "pipe"] });
@@ -111,7 +120,7 @@ async function stop(child: ChildProcess, signal: NodeJS.Signals = "SIGTERM"): Pr
 
 /** A worker process; resolves each completed analyse-<id> with its time (ms, hrtime). */
 async function startWorker(vars: string[]) {
-  const child = spawnWith([...vars, "ANALYSIS_CONCURRENCY=1", "ANALYSIS_SWEEP_INTERVAL_S=3600"], ["--import", "tsx", "workers/index.ts"]);
+  const child = spawnWith([...vars, "ANALYSIS_CONCURRENCY=1", "ANALYSIS_SWEEP_INTERVAL_S=3600"], [...profFlags(), "--import", "tsx", "workers/index.ts"]);
   const done = new Map<string, number>();
   const w = { child, done, failure: null as string | null };
   const ready = waitLine(child, /^worker ready/, "the worker");
@@ -157,10 +166,7 @@ async function main(): Promise<void> {
   }
   await new Promise<void>((resolve, reject) => spawn("env", [...vars, process.execPath, "--import", "tsx", "scripts/migrate.ts"], { cwd: ROOT, stdio: "ignore" })
     .once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`migrations failed (${code})`)))));
-  // --cpu-prof-dir=DIR: the server writes a V8 CPU profile there when it stops (profiling the upload path).
-  const profDir = process.argv.find((a) => a.startsWith("--cpu-prof-dir="))?.slice("--cpu-prof-dir=".length);
-  const server = spawnWith([...vars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"],
-    [...(profDir ? ["--cpu-prof", `--cpu-prof-dir=${profDir}`] : []), "--import", "tsx", "scripts/bench-ingest.ts", "--serve"]);
+  const server = spawnWith([...vars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"], [...profFlags(), "--import", "tsx", "scripts/bench-ingest.ts", "--serve"]);
   const ready = JSON.parse((await waitLine(server, /^READY (.*)$/, "the bench server"))[1]) as Ready;
   process.stderr.write("stack ready; simulating the standard record…\n");
   const rec = standardRecord();
@@ -208,13 +214,18 @@ async function main(): Promise<void> {
   // 3. Idle end-to-end: one record at a time, the gateway polls its record every 20 ms.
   const w = await startWorker(vars);
   const e2e: number[] = [];
+  let spectral = "";
   for (let i = 0; i < IDLE_RUNS; i++) {
     const t0 = process.hrtime.bigint();
     const { id } = await upload(ready.fddKeys[1]);
     for (;;) {
       if (w.failure) throw new Error(`the worker failed a job: ${w.failure}`);
       const r = await send(ready.port, "GET", `/api/v1/records/${id}`, ready.fddKeys[1]);
-      if (r.body.record?.status === "analysed") break;
+      if (r.body.record?.status === "analysed") {
+        const sp = r.body.analysis?.spectral;
+        if (sp) spectral = `Welch segments of ${sp.nperseg} samples chosen by the engine for the lowest tracked band (${sp.averages} averages, ${sp.lineSpacingHz.toFixed(4)} Hz lines)`;
+        break;
+      }
       if (r.body.record?.status === "failed" || r.body.record?.status === "rejected") throw new Error(`record ${id} ${r.body.record.status}`);
       await new Promise((r2) => setTimeout(r2, 20));
     }
@@ -228,7 +239,8 @@ async function main(): Promise<void> {
   console.log(`\nModewarden ingest bench — ${new Date().toISOString()}, Node ${process.version}, ${cpus().length} cores`);
   console.log(`load average before ${load0.map((x) => x.toFixed(2)).join(" ")}, after ${load1.map((x) => x.toFixed(2)).join(" ")}`);
   console.log(`upload path: loopback HTTP → in-process node:http server wrapping the route handler of POST /api/v1/records (not the built Next app)`);
-  console.log(`standard record: ${N_CH} ch × ${FS} Hz × ${DURATION_S} s float32 LE, ${(rec.rawBytes / 1e6).toFixed(2)} MB decoded, ${(sentBytes / 1e6).toFixed(2)} MB gzip multipart\n`);
+  console.log(`standard record: ${N_CH} ch × ${FS} Hz × ${DURATION_S} s float32 LE, ${(rec.rawBytes / 1e6).toFixed(2)} MB decoded, ${(sentBytes / 1e6).toFixed(2)} MB gzip multipart`);
+  console.log(`analysis: default settings v1 (FDD/EFDD) or + SSI-COV; ${spectral}\n`);
   console.log(row("measure", "value", "target"));
   console.log(row("-".repeat(62), "-".repeat(22), "-".repeat(12)));
   console.log(row(`upload acceptance p50, ${GATEWAYS} gateways at once (${lat.length} uploads)`, `${median(lat).toFixed(0)} ms`, ""));
