@@ -118,7 +118,7 @@ describe("Trends screens (engineer)", () => {
     ].join("\n");
     await input.setInputFiles({ name: "good.csv", mimeType: "text/csv", buffer: Buffer.from(good) });
     await page.getByRole("button", { name: "Preview" }).click();
-    await page.getByTestId("preview-first-rows").waitFor();
+    await page.getByTestId("preview-modes").getByText("Lateral 1: 2 rows · new tracked mode").waitFor();
     expect(await page.getByTestId("preview-rows").innerText()).toBe("4");
     expect(await page.getByTestId("preview-error-count").innerText()).toBe("0");
     const modes = await page.getByTestId("preview-modes").innerText();

@@ -55,7 +55,8 @@ export function HistoryImport({ assetId }: { assetId: string }) {
     startTransition(() => dispatchImport(fd));
   }
 
-  const p = preview?.ok && shownFor === file ? preview.data : null;
+  // While a preview is running the previous answer (of another file, maybe) is not shown.
+  const p = preview?.ok && shownFor === file && !previewing ? preview.data : null;
   const imported = done?.ok && p && importedFor === file ? done.data : null;
   return (
     <div className="space-y-4">
