@@ -3,7 +3,6 @@
  * of the contract, `meta` and `data`, counting bytes as they arrive: past the limit the
  * request is abandoned with 413, so nothing beyond the limit is ever buffered.
  */
-import { Readable, Transform } from "node:stream";
 import busboy from "busboy";
 import { AppError } from "@/lib/http/errors";
 
@@ -54,24 +53,29 @@ export async function readUploadParts(
     let failed = false;
     const seen = new Set<string>();
     let total = 0;
-    const source = Readable.fromWeb(body as import("node:stream/web").ReadableStream<Uint8Array>);
-    const counter = new Transform({
-      transform(chunk: Buffer, _enc, cb) {
-        total += chunk.length;
-        if (total > maxBytes + META_MAX_BYTES) cb(tooLarge(maxBytes));
-        else cb(null, chunk);
-      },
-    });
+    // The body is read straight from its web stream into the parser (no Node stream adapter
+    // and counting transform per chunk), with backpressure from busboy.
+    const reader = body.getReader();
     const fail = (e: unknown) => {
       if (failed) return;
       failed = true;
       // Stop feeding the parser and drop the request; busboy itself is left to the
       // garbage collector (destroying it from inside its own callbacks corrupts its state).
-      counter.unpipe(bb);
-      source.unpipe(counter);
-      source.destroy();
-      counter.destroy();
+      reader.cancel().catch(() => undefined);
       reject(e instanceof AppError ? e : bad("The multipart body is malformed.", "multipart_malformed"));
+    };
+    const pump = async () => {
+      for (;;) {
+        const { done, value } = await reader.read();
+        if (failed) return;
+        if (done) {
+          bb.end();
+          return;
+        }
+        total += value.byteLength;
+        if (total > maxBytes + META_MAX_BYTES) return fail(tooLarge(maxBytes));
+        if (!bb.write(value)) await new Promise((r) => bb.once("drain", r));
+      }
     };
     const claim = (name: string): boolean => {
       if (name !== "meta" && name !== "data") {
@@ -109,8 +113,6 @@ export async function readUploadParts(
     bb.on("filesLimit", () => fail(bad("Send exactly two parts: meta and data.", "parts_limit")));
     bb.on("fieldsLimit", () => fail(bad("Send exactly two parts: meta and data.", "parts_limit")));
     bb.on("error", fail);
-    counter.on("error", fail);
-    source.on("error", fail);
     bb.on("close", () => {
       if (failed) return;
       if (meta === null) return fail(bad("The part 'meta' is missing.", "part_required", "meta"));
@@ -118,6 +120,6 @@ export async function readUploadParts(
       if (Buffer.byteLength(meta, "utf8") > META_MAX_BYTES) return fail(bad(`The part 'meta' exceeds ${META_MAX_BYTES} bytes.`, "meta_size", "meta"));
       resolve({ meta, data });
     });
-    source.pipe(counter).pipe(bb);
+    pump().catch(fail);
   });
 }
