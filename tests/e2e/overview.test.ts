@@ -66,6 +66,8 @@ describe("Owner: needs attention and the Asset Overview", () => {
     // Four tracked modes on the demo footbridges (demo-modal.ts), at least one beyond its limit.
     expect(await page.locator("[data-mode-row]").count()).toBeGreaterThanOrEqual(3);
     expect(await page.locator("[data-mode-row][data-beyond=true]").count()).toBeGreaterThanOrEqual(1);
+    // Identification rate over 30 days (H2's getIdentificationRates): "N %" over "identified of sought".
+    expect(await page.locator("[data-mode-row='1']").innerText()).toMatch(/\d+ %\s+\d+ of \d+/);
     // Eight channels (data.ts), thirty days each.
     expect(await page.locator("[data-testid=channel-timeline] [data-channel]").count()).toBe(8);
     expect(await page.locator("[data-testid=channel-timeline] [data-channel=A1] [data-day]").count()).toBe(30);

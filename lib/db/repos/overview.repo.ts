@@ -1,6 +1,6 @@
 /**
  * Reads of the Asset Overview (issue 6 §1): data availability over a window (records per
- * day, identification rate per tracked mode, channel quality per day), gateways with their
+ * day, channel quality per day), gateways with their
  * last contact, open alerts. Days are calendar days in the organisation's time zone.
  * Every read takes the current result of a record (the settings version it was last
  * analysed with), as the Records screen does.
@@ -32,40 +32,6 @@ export async function countRecordsPerDay(db: Db, assetId: string, w: DayWindow):
     ),
   );
   return (res as { rows: RecordsPerDay[] }).rows;
-}
-
-export interface IdentificationRate {
-  trackedModeId: string;
-  label: string;
-  nominalFrequencyHz: number;
-  active: boolean;
-  /** Accepted analyses (verdict not reject) in the window with an assignment row for the mode. */
-  analysed: number;
-  /** Of those, how many identified the mode. */
-  identified: number;
-}
-
-/** Per tracked mode (active first, by nominal frequency): how often it was identified in the window. */
-export async function countIdentificationRates(db: Db, assetId: string, w: { from: Date; to: Date }): Promise<IdentificationRate[]> {
-  const res = await withDbErrors(() =>
-    db.raw(
-      `select tm.id as "trackedModeId", tm.label, tm.nominal_frequency_hz as "nominalFrequencyHz", tm.active,
-              count(x.result_id)::int as analysed, count(x.identified_mode_id)::int as identified
-         from tracked_modes tm
-         left join (
-           select ma.tracked_mode_id, ma.result_id, ma.identified_mode_id
-             from mode_assignments ma
-             join analysis_results ar on ar.id = ma.result_id and ar.verdict <> 'reject'
-             join records r on r.id = ar.record_id and ar.settings_version = r.analysed_settings_version
-            where r.asset_id = ? and r.started_at >= ? and r.started_at < ?
-         ) x on x.tracked_mode_id = tm.id
-        where tm.asset_id = ?
-        group by tm.id
-        order by tm.active desc, tm.nominal_frequency_hz, tm.label`,
-      [assetId, w.from, w.to, assetId],
-    ),
-  );
-  return (res as { rows: IdentificationRate[] }).rows;
 }
 
 export interface ChannelDay {

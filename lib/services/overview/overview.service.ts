@@ -6,8 +6,8 @@
  */
 import { db } from "@/lib/db/knex";
 import {
-  countIdentificationRates, countRecordsPerDay, listChannelDeactivations, listChannelQualityPerDay,
-  listGatewayContacts, listOpenAlertsOfAsset, type GatewayContact, type IdentificationRate, type OpenAlertRow,
+  countRecordsPerDay, listChannelDeactivations, listChannelQualityPerDay,
+  listGatewayContacts, listOpenAlertsOfAsset, type GatewayContact, type OpenAlertRow,
 } from "@/lib/db/repos/overview.repo";
 import {
   listAlertChangesSince, listAuditChangesSince, listBaselineVersionsSince, listSettingsVersionsSince,
@@ -18,6 +18,7 @@ import { listChannelsOfAsset } from "@/lib/db/repos/sensor-channel.repo";
 import type { Actor, Asset, SensorChannel } from "@/lib/domain/types";
 import { loadOwnAsset } from "@/lib/services/assets/asset.service";
 import { assertCan } from "@/lib/services/authz";
+import { getIdentificationRates } from "@/lib/services/tracking/identification-rate.service";
 import { buildAttention, type AttentionItem } from "./attention";
 import { buildChanges, type ChangeItem } from "./changes";
 import { buildChannelTimeline, localDays, type ChannelTimelineRow } from "./timeline";
@@ -28,6 +29,18 @@ export const AVAILABILITY_DAYS = 30;
 /** Window of the "x of y records" count of a data issue, days. */
 export const ISSUE_WINDOW_DAYS = 7;
 const CHANGES_LIMIT = 100;
+
+/** A tracked mode's identifications over the availability window (from H2's getIdentificationRates). */
+export interface IdentificationRate {
+  trackedModeId: string;
+  label: string;
+  nominalFrequencyHz: number;
+  active: boolean;
+  /** Analysed records of the window whose current result sought the mode. */
+  analysed: number;
+  /** Of those, how many identified it. */
+  identified: number;
+}
 
 export interface AssetOverview {
   asset: Asset;
@@ -66,7 +79,7 @@ export async function getAssetOverview(actor: Actor, assetId: string, opts: { no
     listGatewayContacts(db(), asset.id),
     listOpenAlertsOfAsset(db(), asset.id),
     countRecordsPerDay(db(), asset.id, w),
-    countIdentificationRates(db(), asset.id, w),
+    getIdentificationRates(actor, asset.id, { from: w.from, to: w.to }),
     listChannelQualityPerDay(db(), asset.id, w),
     listChannelDeactivations(db(), asset.id),
     listAssetBaselineStates(db(), actor.organisationId),
@@ -79,7 +92,9 @@ export async function getAssetOverview(actor: Actor, assetId: string, opts: { no
       days,
       recordsPerDay: days.map((d) => byDay.get(d) ?? { day: d, total: 0, analysed: 0, rejected: 0, failed: 0 }),
       expectedPerDay: 1440 / asset.expectedIntervalMin,
-      identification,
+      identification: identification.modes
+        .map((m) => ({ trackedModeId: m.id, label: m.label, nominalFrequencyHz: m.nominalFrequencyHz, active: m.active, analysed: m.sought, identified: m.identified }))
+        .sort((a, b) => Number(b.active) - Number(a.active)),
       channels: buildChannelTimeline(days, channels, quality, deactivations, timeZone),
     },
   };
