@@ -69,40 +69,12 @@ function useMarkers(view: TrendsView, id: string) {
   )], [view, id]);
 }
 
-/**
- * The prediction band per UTC day: the lowest lower and highest upper edge of the records'
- * ±3 s bands that day (the prediction follows the daily temperature cycle, so a per-record
- * band would be a comb), and the day's mean prediction.
- */
-function dailyBand(mode: TrendMode): { x: number; lo: number; hi: number; mean: number }[] {
-  const out: { x: number; lo: number; hi: number; mean: number }[] = [];
-  let day = Number.NaN;
-  let n = 0;
-  for (const p of mode.points) {
-    if (p.predictedHz === null || p.bandLowHz === null || p.bandHighHz === null) continue;
-    const d = Math.floor(p.atMs / DAY);
-    if (d !== day) {
-      if (n > 0) out[out.length - 1].mean /= n;
-      out.push({ x: d * DAY + DAY / 2, lo: p.bandLowHz, hi: p.bandHighHz, mean: 0 });
-      day = d;
-      n = 0;
-    }
-    const cur = out[out.length - 1];
-    cur.lo = Math.min(cur.lo, p.bandLowHz);
-    cur.hi = Math.max(cur.hi, p.bandHighHz);
-    cur.mean += p.predictedHz;
-    n++;
-  }
-  if (n > 0) out[out.length - 1].mean /= n;
-  return out;
-}
-
 /** Frequency against time, coloured by temperature, with the prediction and its ±3 s band. */
 export function FrequencyTimeChart({ mode, view, csvBase, tRange }: { mode: TrendMode; view: TrendsView; csvBase: string; tRange: [number, number] }) {
   const plugins = useMarkers(view, `ft-${mode.trackedModeId}`);
   const data = useMemo<ChartData<"scatter", Pt[]>>(() => {
     const inEnv = mode.points.filter((p) => !p.outOfEnvelope);
-    const days = dailyBand(mode);
+    const days = mode.band;
     const ds: Ds[] = [];
     if (days.length > 0) {
       ds.push(line("Band low", days.map((d) => ({ x: d.x, y: d.lo })), TREND.bandEdge, { borderWidth: 0.6, order: 4 }));

@@ -17,12 +17,11 @@ export interface TrendPoint {
   atMs: number;
   frequencyHz: number;
   temperatureC: number | null;
-  predictedHz: number | null;
-  bandLowHz: number | null;
-  bandHighHz: number | null;
-  residualHz: number | null;
   outOfEnvelope: boolean;
 }
+
+/** The prediction band of one UTC day (x = noon): lowest lower and highest upper ±3 s edge, mean prediction. */
+export interface TrendBandDay { x: number; lo: number; hi: number; mean: number }
 
 export interface TrendDaily {
   dayMs: number;
@@ -43,6 +42,7 @@ export interface TrendMode {
   nominalHz: number;
   model: TrendModel | null;
   points: TrendPoint[];
+  band: TrendBandDay[];
   daily: TrendDaily[];
   minimalShift: { shiftHz: number; shiftPct: number } | null;
   damping: { points: { atMs: number; dampingRatio: number }[]; median: number | null; lowerAdvisory: number | null; upperAdvisory: number | null };

@@ -4,6 +4,7 @@ import { connection } from "next/server";
 import { ConditionBadge } from "@/components/condition/condition-badge";
 import { zonedDayStart } from "@/components/records/zoned-day";
 import { ModeTrends, T2Chart } from "@/components/trends/trend-charts";
+import { toTrendMode } from "@/components/trends/shape";
 import type { TrendsView } from "@/components/trends/types";
 import { formatDate, formatDateTime } from "@/components/ui/format";
 import { Notice } from "@/components/ui/notice";
@@ -66,8 +67,8 @@ export default async function TrendsPage({ params, searchParams }: { params: Pro
   const xMinMs = from ? from.getTime() : firstMs;
   const xMaxMs = to ? Math.min(to.getTime(), nowMs) : nowMs;
   const trends: TrendsView = {
-    modes: view.modes,
-    t2: view.t2,
+    modes: view.modes.map(toTrendMode),
+    t2: view.t2.map((d) => ({ ...d, t2: Number(d.t2.toFixed(4)) })),
     t2Ucl: view.t2Ucl,
     alertTimesMs: [...new Set([...view.alerts.map((a) => a.raisedAtMs), ...view.raisedAtMs])].sort((a, b) => a - b),
     training: view.baseline ? { fromMs: view.baseline.trainingFrom.getTime(), toMs: view.baseline.trainingTo.getTime() } : null,
@@ -172,9 +173,9 @@ export default async function TrendsPage({ params, searchParams }: { params: Pro
 
       {view.modes.length === 0 ? (
         <Notice>No tracked modes yet: track a mode from a record, or import a modal history.</Notice>
-      ) : view.modes.map((m) => (
+      ) : view.modes.map((m, j) => (
         <Panel key={m.trackedModeId} title={<span id={`mode-${m.trackedModeId}`}>{m.label} · {Number.isFinite(m.nominalHz) ? `${m.nominalHz.toFixed(3)} Hz` : ""}</span>}>
-          <ModeTrends mode={m} view={trends} csvBase={csvBase} tRange={tRange} />
+          <ModeTrends mode={trends.modes[j]} view={trends} csvBase={csvBase} tRange={tRange} />
         </Panel>
       ))}
     </div>
