@@ -74,14 +74,16 @@ export async function analyseRecord(
     throw new PermanentAnalysisError(`the raw samples do not decode: ${isAppError(e) ? e.message : String(e)}`);
   }
   // A force channel (forced test) is left out of the output-only identification and used for FRFs.
-  const forceCodes = new Set((await listChannelsOfAsset(db(), record.assetId)).filter((c) => c.quantity === "force").map((c) => c.code));
+  const assetChannels = await listChannelsOfAsset(db(), record.assetId);
+  const forceCodes = new Set(assetChannels.filter((c) => c.quantity === "force").map((c) => c.code));
   const forceIdx = record.channels.findIndex((c) => forceCodes.has(c));
   let force = forceIdx >= 0 ? data[forceIdx] : null;
   const channels = record.channels.filter((_, i) => i !== forceIdx);
-  data = data.filter((_, i) => i !== forceIdx).map((x) => toMetresPerSecondSquared(x, record.units));
+  // Decoded samples are finite Float64Arrays already: m/s² needs no converted copy.
+  data = data.filter((_, i) => i !== forceIdx).map((x) => (record.units === "m/s2" ? x : toMetresPerSecondSquared(x, record.units)));
   // --- Response levels for serviceability (issue 6 §2; owner H5): per channel, before any
   // decimation, in m/s²; the serviceability view keeps only the channels the analysis used.
-  const directionOf = new Map((await listChannelsOfAsset(db(), record.assetId)).map((c) => [c.code, c.direction as string]));
+  const directionOf = new Map(assetChannels.map((c) => [c.code, c.direction as string]));
   await upsertResponseLevels(db(), record.id, computeChannelResponseLevels({
     sampleRateHz: record.sampleRateHz, units: "m/s2", data, channels: channels.map((code) => ({ code, direction: directionOf.get(code) ?? "" })),
   }));
