@@ -5,8 +5,12 @@
  * as a thumbnail served by the attachments route), and closes with an outcome. The asset's
  * condition then follows: PRODUCT.md `alert` is "confirmed drift, inspection asked", so with
  * the inspection done and the drift still beyond its limits the asset shows `watch`.
+ * Afterwards the demo is put back as seeded (see the file's afterAll).
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { closeDb, db } from "@/lib/db/knex";
+import { closeQueues } from "@/lib/jobs/queues";
+import { recomputeDrift } from "@/lib/services/drift/drift.service";
 import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
 import { fetchAssetsInPage, readDemoSignIns, screenshot, signIn } from "./flows";
 
@@ -19,6 +23,14 @@ const PHOTO = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQ
 function dayAhead(days: number): string {
   return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 }
+
+// Set by the phone test when it closed the demo alert; used to put the demo back afterwards.
+let closed: { alertId: string; assetId: string } | null = null;
+
+afterAll(async () => {
+  await closeQueues();
+  await closeDb();
+});
 
 describe("Alerts on a phone", () => {
   let b: BrowserSession;
@@ -102,6 +114,7 @@ describe("Alerts on a phone", () => {
       if (heron && heron.condition !== "alert") break;
       await page.waitForTimeout(1000);
     }
+    closed = heron ? { alertId, assetId: heron.id } : null;
     expect(heron?.condition).toBe("watch");
     await page.goto(`${appUrl()}/assets/${heron?.id}`);
     await page.locator('[data-condition="watch"]').first().waitFor();
@@ -120,7 +133,12 @@ describe("Alerts on a phone", () => {
     await form.getByRole("button", { name: "Save e-mail settings" }).click();
     await form.getByText("Saved.").waitFor();
     await page.reload();
-    expect(await page.getByTestId("notification-form").getByRole("checkbox", { name: HERON }).isChecked()).toBe(true);
+    const again = page.getByTestId("notification-form");
+    expect(await again.getByRole("checkbox", { name: HERON }).isChecked()).toBe(true);
+    // Leave the demo inspector's e-mails as seeded.
+    await again.getByRole("checkbox", { name: HERON }).uncheck();
+    await again.getByRole("button", { name: "Save e-mail settings" }).click();
+    await again.getByText("Saved.").waitFor();
   });
 });
 
@@ -149,5 +167,23 @@ describe("Alerts for an owner on a desktop", () => {
     await screenshot(page, "alert-closed-owner-desktop");
     await page.goto(`${appUrl()}/alerts`);
     await screenshot(page, "alerts-inbox-desktop");
+  });
+});
+
+/**
+ * Later e2e files (Overview, Reports) read the demo as seeded: Heron Reach with an open alert.
+ * Remove the alert closed above and replay the asset's drift through the real service, which
+ * raises it again at the same time from the same statistics and sets `alert` back.
+ */
+describe("after the alert tests", () => {
+  it("puts the demo back as seeded: Heron Reach with an open alert", async () => {
+    expect(closed).not.toBeNull(); // set when the phone test closed the alert
+    const { alertId, assetId } = closed ?? { alertId: "", assetId: "" };
+    await db()("alerts").where({ id: alertId, state: "closed" }).delete();
+    const outcome = await recomputeDrift(assetId);
+    expect(outcome.raisedAlertIds).toHaveLength(1);
+    expect(outcome.condition).toBe("alert");
+    const live = await db()("alerts").where({ asset_id: assetId }).whereNot({ state: "closed" }).select("id");
+    expect(live).toHaveLength(1);
   });
 });
