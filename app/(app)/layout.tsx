@@ -28,12 +28,12 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
     <Providers>
       <div className="flex min-h-screen flex-col">
         <header className="bg-ink text-white print:hidden">
-          <div className="mx-auto flex h-13 max-w-[1400px] items-center gap-5 px-5">
+          <div className="mx-auto flex min-h-13 max-w-[1400px] flex-wrap items-center gap-x-5 gap-y-1 px-3 py-1.5 sm:px-5 sm:py-0">
             <Link href="/" className="shrink-0 text-white">
               <Wordmark />
             </Link>
             <MainNav items={nav} />
-            <div className="ml-auto flex items-center gap-4">
+            <div className="ml-auto flex min-w-0 items-center gap-4">
               <OrganisationSwitcher memberships={memberships} currentId={actor.organisationId} />
               <span className="hidden text-sm text-white/60 sm:inline" data-testid="current-user">
                 {profile.displayName} · <span data-testid="current-role">{ROLE_LABELS[actor.role]}</span>

@@ -18,7 +18,7 @@ function isActive(pathname: string, href: string): boolean {
 export function MainNav({ items }: { items: NavItem[] }) {
   const pathname = usePathname();
   return (
-    <nav aria-label="Main" className="flex items-center gap-1">
+    <nav aria-label="Main" className="-mx-1 flex max-w-full items-center gap-1 overflow-x-auto px-1">
       {items.map((it) => {
         const active = isActive(pathname, it.href);
         return (

@@ -28,7 +28,7 @@ export function OrganisationSwitcher({
   const current = memberships.find((m) => m.organisationId === currentId);
 
   if (memberships.length < 2) {
-    return <span className={variant === "dark" ? "text-sm text-white/80" : "text-sm"}>{current?.organisationName ?? ""}</span>;
+    return <span className={variant === "dark" ? "block max-w-[11rem] truncate text-sm text-white/80 sm:max-w-none" : "text-sm"}>{current?.organisationName ?? ""}</span>;
   }
 
   return (
