@@ -1,14 +1,11 @@
+import { cautionText } from "@/lib/domain/caution";
 import { escapeHtml, type RenderedEmail } from "./escape";
 
 /**
  * The caution of PRODUCT.md, in our words: shown on alerts, in e-mails and in reports.
  * Exported so the alert pages show the same text.
  */
-export const ALERT_CAUTION =
-  "This alert is an automatic indication computed from vibration measurements; it is not an engineering assessment. "
-  + "Natural frequencies and damping also change with temperature, moisture, traffic and faulty sensors, not only with structural change. "
-  + "A licensed structural engineer must review it, and the structure must be inspected under the local codes and the owner's procedures, "
-  + "before anyone decides on its use, load limits or closure. If the structure shows signs of distress, follow the owner's emergency procedures first.";
+export const ALERT_CAUTION = cautionText("alert");
 
 export interface AlertRaisedModeLine { label: string; residualHz: number; lowerLimitHz: number; upperLimitHz: number; residualPct: number | null }
 
