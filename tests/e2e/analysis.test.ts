@@ -12,8 +12,10 @@ import { simulateAmbientRecord } from "@/lib/simulate";
 import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
 import { readDemoSignIns, screenshot, signIn } from "./flows";
 
-const ASSET = DEMO_ASSETS.find((a) => a.gateway.slug === "millrace");
-if (!ASSET) throw new Error("the demo seed has no Millrace Footbridge");
+// Fernbrook: no other browser test uploads to it, so the fresh record below is the only one
+// of the last week with raw samples (Millrace takes the Records and Design tests' uploads).
+const ASSET = DEMO_ASSETS.find((a) => a.gateway.slug === "fernbrook");
+if (!ASSET) throw new Error("the demo seed has no Fernbrook Timber Footbridge");
 const SPAN = ASSET.mainDimensionM;
 const FS = 50;
 const key = demoGatewayKey(ASSET.gateway.slug);
