@@ -43,17 +43,29 @@ function channelLevel(x: ArrayLike<number>, factor: number, window: number): Cha
   let count = 0;
   for (let i = 0; i < n; i++) if (Number.isFinite(x[i])) { sum += x[i]; count++; }
   const mean = count ? sum / count : 0;
-  const sq = new Float64Array(n + 1); // sq[i] = Σ_{k<i} (x_k − mean)²·factor²
+  // The cumulative sum of squares S_i = Σ_{k<i} (x_k − mean)²·factor², with the last
+  // window + 1 values kept in a ring (S_{i−window} is all a window needs): the same sums and
+  // differences as a full prefix array, without a record-length allocation per channel.
+  const ring = new Float64Array(window + 1);
+  let acc = 0;
   let peak = 0;
-  for (let i = 0; i < n; i++) {
-    const v = Number.isFinite(x[i]) ? (x[i] - mean) * factor : 0;
-    peak = Math.max(peak, Math.abs(v));
-    sq[i + 1] = sq[i] + v * v;
-  }
-  const rms = Math.sqrt(sq[n] / n);
-  if (n <= window) return { peak, maxRms1s: rms, rms };
   let maxMs = 0;
-  for (let i = window; i <= n; i++) maxMs = Math.max(maxMs, sq[i] - sq[i - window]);
+  // S_j sits in slot j mod (window + 1); S_{j−window} is then in the slot after S_j's.
+  for (let i = 0, slot = 1; i < n; i++) {
+    const xi = x[i];
+    const v = Number.isFinite(xi) ? (xi - mean) * factor : 0;
+    const a = Math.abs(v);
+    if (a > peak) peak = a;
+    acc += v * v;
+    ring[slot] = acc; // S_{i+1}
+    slot = slot === window ? 0 : slot + 1;
+    if (i + 1 >= window) {
+      const ms = acc - ring[slot]; // S_{i+1} − S_{i+1−window}
+      if (ms > maxMs) maxMs = ms;
+    }
+  }
+  const rms = Math.sqrt(acc / n);
+  if (n <= window) return { peak, maxRms1s: rms, rms };
   return { peak, maxRms1s: Math.sqrt(Math.max(0, maxMs) / window), rms };
 }
 
