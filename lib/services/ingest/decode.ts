@@ -6,7 +6,8 @@
  *  - application/octet-stream: float32 little-endian, interleaved sample by sample;
  *  - either gzip-compressed, recognised by the gzip header (1f 8b 08).
  */
-import { createGunzip } from "node:zlib";
+import { constants as bufferConstants } from "node:buffer";
+import { gunzip } from "node:zlib";
 import { AppError } from "@/lib/http/errors";
 import type { DataFormat } from "@/lib/domain/records";
 
@@ -81,23 +82,20 @@ const tooLargeDecoded = (maxDecodedBytes: number) => new AppError("payload_too_l
   details: { field: "data", rule: "max_decoded_bytes", limitBytes: maxDecodedBytes },
 });
 
-/** Gunzip the chunks as a stream (no joined copy of the input), refusing output past the limit. */
+/**
+ * Gunzip the chunks in one zlib call on the thread pool (input joined once; the output
+ * buffer sized from the trailer), refusing output past the limit. One pass instead of a
+ * stream of hundreds of writes, each a thread-pool round trip and a JS callback.
+ */
 function gunzipChunks(chunks: Buffer[], compressedBytes: number, maxDecodedBytes: number): Promise<Buffer> {
+  const input = joinChunks(chunks, compressedBytes);
   return new Promise((resolve, reject) => {
-    const z = createGunzip({ chunkSize: outputChunkSize(chunks, compressedBytes, maxDecodedBytes) });
-    const out: Buffer[] = [];
-    let total = 0;
-    z.on("data", (c: Buffer) => {
-      total += c.length;
-      if (total > maxDecodedBytes) {
-        z.destroy();
-        reject(tooLargeDecoded(maxDecodedBytes));
-      } else out.push(c);
+    // maxOutputLength refuses output past the limit (exactly the limit is accepted) and stops inflating there.
+    const maxOutputLength = Math.min(maxDecodedBytes, bufferConstants.MAX_LENGTH);
+    gunzip(input, { chunkSize: outputChunkSize(chunks, compressedBytes, maxDecodedBytes), maxOutputLength }, (err, out) => {
+      if (!err) resolve(out);
+      else reject((err as NodeJS.ErrnoException).code === "ERR_BUFFER_TOO_LARGE" ? tooLargeDecoded(maxDecodedBytes) : err);
     });
-    z.on("error", reject);
-    z.on("end", () => resolve(joinChunks(out, total)));
-    for (const c of chunks) z.write(c);
-    z.end();
   });
 }
 
