@@ -5,7 +5,7 @@
  * folder and are renamed into place, so a crash never leaves a half-written blob.
  */
 import { randomUUID } from "node:crypto";
-import { mkdir, open, readFile, rename, rm, stat } from "node:fs/promises";
+import { mkdir, readFile, rename, rm, stat, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { assertBlobKey, type BlobStore } from "./blob-store";
 
@@ -27,11 +27,10 @@ export class FsBlobStore implements BlobStore {
     await mkdir(path.dirname(file), { recursive: true });
     const tmp = `${file}.${randomUUID()}.tmp`;
     try {
-      await writeWhole(tmp, bytes);
+      await writeFile(tmp, bytes);
       await rename(tmp, file);
-    } catch (e) {
+    } finally {
       await rm(tmp, { force: true });
-      throw e;
     }
   }
 
@@ -60,23 +59,6 @@ export class FsBlobStore implements BlobStore {
       if (isNotFound(e)) return false;
       throw e;
     }
-  }
-}
-
-/**
- * Write `bytes` to a new file in as few write(2) calls as the kernel allows (usually one):
- * fs.promises.writeFile writes a buffer in 512 KiB slices, a thread-pool round trip each,
- * i.e. 15 for a 7.7 MB record.
- */
-async function writeWhole(file: string, bytes: Uint8Array): Promise<void> {
-  const fh = await open(file, "wx");
-  try {
-    for (let off = 0; off < bytes.length;) {
-      const { bytesWritten } = await fh.write(bytes, off, bytes.length - off);
-      off += bytesWritten;
-    }
-  } finally {
-    await fh.close();
   }
 }
 
