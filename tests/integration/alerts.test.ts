@@ -4,7 +4,6 @@
  * leaves an alert event and an audit entry; other organisations get 404; routes answer
  * 401/403/404/409/422.
  */
-import type { Worker } from "bullmq";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as listRoute from "@/app/api/v1/alerts/route";
 import * as alertRoute from "@/app/api/v1/alerts/[alertId]/route";
@@ -13,38 +12,29 @@ import * as scheduleRoute from "@/app/api/v1/alerts/[alertId]/schedule/route";
 import * as assignRoute from "@/app/api/v1/alerts/[alertId]/assign/route";
 import * as commentsRoute from "@/app/api/v1/alerts/[alertId]/comments/route";
 import * as closeRoute from "@/app/api/v1/alerts/[alertId]/close/route";
-import { closeDb, db } from "@/lib/db/knex";
+import { db } from "@/lib/db/knex";
 import { insertAlertIfNew } from "@/lib/db/repos/alert.repo";
 import type { Alert } from "@/lib/domain/drift";
 import { env } from "@/lib/config/env";
-import { closeMailTransport } from "@/lib/email/transport";
-import { createRedisConnection } from "@/lib/jobs/connection";
-import { closeQueues } from "@/lib/jobs/queues";
 import { linksIn, waitForMail } from "@/tests/helpers/mail";
-import { createMailWorker } from "@/workers/mail.worker";
 import {
   acknowledgeAlert, assignAlert, closeAlert, commentOnAlert, getAlert, listAlerts, scheduleInspection,
 } from "@/lib/services/alerts/alert.service";
 import { createAsset, listAssets } from "@/lib/services/assets/asset.service";
 import { call, makeTeam, tokenFor, validAsset } from "./support/factories";
+import { startMailWorker } from "./support/mail-worker";
 
 type Team = Awaited<ReturnType<typeof makeTeam>>;
 let team: Team;
 let foreign: Team;
-let worker: Worker;
-let connection: ReturnType<typeof createRedisConnection>;
+let mail: ReturnType<typeof startMailWorker>;
 
 beforeAll(async () => {
   [team, foreign] = await Promise.all([makeTeam(), makeTeam()]);
-  connection = createRedisConnection();
-  worker = createMailWorker(connection);
+  mail = startMailWorker();
 });
 afterAll(async () => {
-  await worker.close();
-  await connection.quit();
-  await closeQueues();
-  closeMailTransport();
-  await closeDb();
+  await mail.stop();
 });
 
 async function raise(raisedAt = new Date(Date.UTC(2025, 5, 1))): Promise<Alert> {

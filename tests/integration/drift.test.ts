@@ -5,25 +5,23 @@
  * sends one e-mail with the caution and the alert link to each inspector and engineer.
  * Baseline routes: 401/403/404/422 and versions.
  */
-import type { Worker } from "bullmq";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as baselinesRoute from "@/app/api/v1/assets/[assetId]/baselines/route";
 import { env } from "@/lib/config/env";
-import { closeDb, db } from "@/lib/db/knex";
-import { closeMailTransport } from "@/lib/email/transport";
+import { db } from "@/lib/db/knex";
 import { createRedisConnection } from "@/lib/jobs/connection";
 import { enqueueDrift } from "@/lib/jobs/drift";
 import { updateAssetById } from "@/lib/db/repos/asset.repo";
 import { createDriftWorker } from "@/workers/drift.worker";
-import { closeQueues } from "@/lib/jobs/queues";
 import { createAsset, getAsset } from "@/lib/services/assets/asset.service";
 import { fitAndActivateBaseline, listBaselines } from "@/lib/services/drift/baseline.service";
 import { recomputeDrift } from "@/lib/services/drift/drift.service";
 import { importModalHistory } from "@/lib/services/drift/history-import.service";
 import { simulateDriftHistory } from "@/lib/stats/drift-simulation";
 import { caughtMails, linksIn, waitForMail } from "@/tests/helpers/mail";
-import { createMailWorker } from "@/workers/mail.worker";
 import { call, makeTeam, tokenFor, validAsset } from "./support/factories";
+import { startMailWorker } from "./support/mail-worker";
+import { simulatedHistoryCsv } from "./support/history";
 
 const DAY = 86_400_000;
 // Same scenario as tests/unit/stats/drift-detection.test.ts (seed 2026, onset on day 550),
@@ -33,35 +31,19 @@ const sim = simulateDriftHistory({ seed: 2026, days: ONSET_DAY + 40, onsetDay: O
 const t0 = sim.history.timesMs[0];
 const onsetMs = sim.onsetMs ?? Number.NaN;
 
-/** The simulated history as the import CSV (records failing quality are left out, as a consultant would). */
-function historyCsv(): string {
-  const h = sim.history;
-  const lines = ["timestamp,mode,frequencyHz,dampingRatio,temperatureC"];
-  for (let i = 0; i < h.timesMs.length; i++) {
-    if (h.qualityPassed && !h.qualityPassed[i]) continue;
-    const ts = new Date(h.timesMs[i]).toISOString();
-    for (const m of h.modes) lines.push(`${ts},${m.modeId},${m.frequencyHz[i]},,${h.temperatureC[i]}`);
-  }
-  return lines.join("\n");
-}
+const historyCsv = () => simulatedHistoryCsv(sim.history);
 
 type Team = Awaited<ReturnType<typeof makeTeam>>;
 let team: Team;
 let foreign: Team;
-let worker: Worker;
-let connection: ReturnType<typeof createRedisConnection>;
+let mail: ReturnType<typeof startMailWorker>;
 
 beforeAll(async () => {
   [team, foreign] = await Promise.all([makeTeam(), makeTeam()]);
-  connection = createRedisConnection();
-  worker = createMailWorker(connection);
+  mail = startMailWorker();
 });
 afterAll(async () => {
-  await worker.close();
-  await connection.quit();
-  await closeQueues();
-  closeMailTransport();
-  await closeDb();
+  await mail.stop();
 });
 
 describe("recomputeDrift on an imported history", () => {
@@ -114,7 +96,7 @@ describe("drift queue and worker", () => {
   it("replays an asset queued as drift-<assetId>: without a baseline the asset is commissioning", async () => {
     const asset = await createAsset(team.engineer.actor, validAsset());
     await updateAssetById(db(), asset.id, { condition: "steady" });
-    const workerConnection = connection.duplicate();
+    const workerConnection = createRedisConnection();
     const driftWorker = createDriftWorker(workerConnection);
     try {
       const job = await enqueueDrift(asset.id);

@@ -5,13 +5,10 @@
  * HTML. Closing the alert turns the asset's `alert` condition into `watch` (PRODUCT.md:
  * `alert` = confirmed drift, inspection asked). Settings: 422 for a foreign asset, audited.
  */
-import type { Worker } from "bullmq";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { env } from "@/lib/config/env";
-import { closeDb, db } from "@/lib/db/knex";
-import { closeMailTransport } from "@/lib/email/transport";
-import { createRedisConnection } from "@/lib/jobs/connection";
-import { QUEUE_NAMES, closeQueues, getQueue } from "@/lib/jobs/queues";
+import { db } from "@/lib/db/knex";
+import { QUEUE_NAMES, getQueue } from "@/lib/jobs/queues";
 import { listNotificationPrefs, updateNotificationPrefs } from "@/lib/services/accounts/notification.service";
 import { assignAlert, closeAlert } from "@/lib/services/alerts/alert.service";
 import { createAsset, getAsset } from "@/lib/services/assets/asset.service";
@@ -20,43 +17,30 @@ import { recomputeDrift } from "@/lib/services/drift/drift.service";
 import { importModalHistory } from "@/lib/services/drift/history-import.service";
 import { simulateDriftHistory } from "@/lib/stats/drift-simulation";
 import { caughtMails, linksIn, waitForMail, type CaughtMail } from "@/tests/helpers/mail";
-import { createMailWorker } from "@/workers/mail.worker";
 import { makeMember, makeTeam, validAsset, type TestMember } from "./support/factories";
+import { startMailWorker } from "./support/mail-worker";
+import { simulatedHistoryCsv } from "./support/history";
 
 const DAY = 86_400_000;
 // The scenario of tests/integration/drift.test.ts: seed 2026, 2 % stiffness loss on day 550.
 const sim = simulateDriftHistory({ seed: 2026, days: 590, onsetDay: 550, stiffnessLoss: 0.02 });
 const t0 = sim.history.timesMs[0];
 
-function historyCsv(): string {
-  const h = sim.history;
-  const lines = ["timestamp,mode,frequencyHz,dampingRatio,temperatureC"];
-  for (let i = 0; i < h.timesMs.length; i++) {
-    if (h.qualityPassed && !h.qualityPassed[i]) continue;
-    for (const m of h.modes) lines.push(`${new Date(h.timesMs[i]).toISOString()},${m.modeId},${m.frequencyHz[i]},,${h.temperatureC[i]}`);
-  }
-  return lines.join("\n");
-}
+const historyCsv = () => simulatedHistoryCsv(sim.history);
 
 type Team = Awaited<ReturnType<typeof makeTeam>>;
 let team: Team;
 let foreign: Team;
 let quietInspector: TestMember;
-let worker: Worker;
-let connection: ReturnType<typeof createRedisConnection>;
+let mail: ReturnType<typeof startMailWorker>;
 
 beforeAll(async () => {
   [team, foreign] = await Promise.all([makeTeam(), makeTeam()]);
   quietInspector = await makeMember(team.org, "inspector");
-  connection = createRedisConnection();
-  worker = createMailWorker(connection);
+  mail = startMailWorker();
 });
 afterAll(async () => {
-  await worker.close();
-  await connection.quit();
-  await closeQueues();
-  closeMailTransport();
-  await closeDb();
+  await mail.stop();
 });
 
 const to = (who: TestMember, subject: string) => (m: CaughtMail) => m.to.includes(who.email.toLowerCase()) && m.subject.startsWith(subject);

@@ -32,6 +32,7 @@ import { simulateDriftHistory } from "@/lib/stats/drift-simulation";
 import { caughtMails, clearMails, waitForMail } from "@/tests/helpers/mail";
 import { createMailWorker } from "@/workers/mail.worker";
 import { makeMember, makeTeam, tokenFor, validAsset, type TestMember } from "./support/factories";
+import { simulatedHistoryCsv } from "./support/history";
 
 const DAY = 86_400_000;
 // The scenario of tests/integration/drift.test.ts: seed 2026, 2 % stiffness loss on day 550.
@@ -42,16 +43,7 @@ const tEnd = sim.history.timesMs[sim.history.timesMs.length - 1];
 const period = { from: new Date(tEnd - 30 * DAY), to: new Date(tEnd + 1) };
 const nowMs = tEnd + DAY;
 
-function historyCsv(): string {
-  const h = sim.history;
-  const lines = ["timestamp,mode,frequencyHz,dampingRatio,temperatureC"];
-  for (let i = 0; i < h.timesMs.length; i++) {
-    if (h.qualityPassed && !h.qualityPassed[i]) continue;
-    const ts = new Date(h.timesMs[i]).toISOString();
-    for (const m of h.modes) lines.push(`${ts},${m.modeId},${m.frequencyHz[i]},0.012,${h.temperatureC[i]}`);
-  }
-  return lines.join("\n");
-}
+const historyCsv = () => simulatedHistoryCsv(sim.history, () => "0.012");
 
 type Team = Awaited<ReturnType<typeof makeTeam>>;
 let team: Team;

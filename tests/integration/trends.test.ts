@@ -15,6 +15,7 @@ import { dampingAdvisory, getDriftView, type DriftView } from "@/lib/services/dr
 import { importModalHistory } from "@/lib/services/drift/history-import.service";
 import { simulateDriftHistory } from "@/lib/stats/drift-simulation";
 import { call, makeTeam, tokenFor, validAsset } from "./support/factories";
+import { simulatedHistoryCsv } from "./support/history";
 
 const DAY = 86_400_000;
 // Same scenario as tests/integration/drift.test.ts (seed 2026, 2 % stiffness loss on day 550).
@@ -24,17 +25,7 @@ const t0 = sim.history.timesMs[0];
 const onsetMs = sim.onsetMs ?? Number.NaN;
 const DAMPING = ["0.008", "0.009", "0.010", "0.011", "0.012"];
 
-/** The simulated history as the import CSV, damping cycling through DAMPING per record. */
-function historyCsv(): string {
-  const h = sim.history;
-  const lines = ["timestamp,mode,frequencyHz,dampingRatio,temperatureC"];
-  for (let i = 0; i < h.timesMs.length; i++) {
-    if (h.qualityPassed && !h.qualityPassed[i]) continue;
-    const ts = new Date(h.timesMs[i]).toISOString();
-    for (const m of h.modes) lines.push(`${ts},${m.modeId},${m.frequencyHz[i]},${DAMPING[i % DAMPING.length]},${h.temperatureC[i]}`);
-  }
-  return lines.join("\n");
-}
+const historyCsv = () => simulatedHistoryCsv(sim.history, (i) => DAMPING[i % DAMPING.length]);
 
 type Team = Awaited<ReturnType<typeof makeTeam>>;
 let team: Team;
