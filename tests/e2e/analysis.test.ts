@@ -8,9 +8,9 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ASSETS } from "@/db/seeds/larkspur/data";
 import { demoGatewayKey } from "@/db/seeds/larkspur/seed-demo";
-import { simulateAmbientRecord } from "@/lib/simulate";
 import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
 import { readDemoSignIns, screenshot, signIn } from "./flows";
+import { uploadSimulatedRecord, waitForRecord } from "./helpers/records";
 
 // Fernbrook: no other browser test uploads to it, so the fresh record below is the only one
 // of the last week with raw samples (Millrace takes the Records and Design tests' uploads).
@@ -21,43 +21,15 @@ const FS = 50;
 const key = demoGatewayKey(ASSET.gateway.slug);
 const analysisUrl = () => `${appUrl()}/assets/${ASSET.id}/analysis`;
 
-interface RecordState { status: string; analysedSettingsVersion: number | null; failureReason: string | null }
-
-/** A 120 s record of two invented bending modes (sin(nπx/L) on the z channels), float32 interleaved. */
-async function uploadRecord(): Promise<string> {
-  const layout = ASSET!.channels.map((c) => ({ code: c.code, x: c.positionM.x, direction: c.direction }));
-  const rec = simulateAmbientRecord({
-    modes: [1, 2].map((n) => ({
-      frequencyHz: 2.2 * n * n, dampingRatio: 0.01, shape: layout.map((c) => (c.direction === "z" ? Math.sin((n * Math.PI * c.x) / SPAN) : 0.05)),
-    })),
-    sampleRateHz: FS, durationS: 120, seed: Date.now() % 100000,
-  });
-  const n = rec.data[0].length;
-  const out = new Float32Array(n * rec.data.length);
-  for (let k = 0; k < n; k++) for (let c = 0; c < rec.data.length; c++) out[k * rec.data.length + c] = rec.data[c][k];
-  const form = new FormData();
-  form.set("meta", new Blob([JSON.stringify({
-    recordId: `e2e-analysis-${Date.now()}`, startedAt: new Date(Date.now() - 15 * 60_000).toISOString(), sampleRateHz: FS,
-    channels: layout.map((c) => c.code), units: "m/s2", temperatureC: 9,
-  })], { type: "application/json" }));
-  form.set("data", new Blob([out.buffer], { type: "application/octet-stream" }), "record.f32");
-  const res = await fetch(`${appUrl()}/api/v1/records`, { method: "POST", headers: { authorization: `Bearer ${key}` }, body: form });
-  const body = (await res.json()) as { record?: { id: string } };
-  if (res.status !== 202 || !body.record) throw new Error(`upload answered ${res.status}: ${JSON.stringify(body)}`);
-  return body.record.id;
-}
-
-/** Poll the record (as its gateway) until `done` holds; fails on a failed analysis. */
-async function waitForRecord(id: string, done: (r: RecordState) => boolean): Promise<RecordState> {
-  for (let i = 0; i < 120; i++) {
-    const res = await fetch(`${appUrl()}/api/v1/records/${id}`, { headers: { authorization: `Bearer ${key}` } });
-    const { record } = (await res.json()) as { record: RecordState };
-    if (done(record)) return record;
-    if (record.status === "failed") throw new Error(`record failed: ${record.failureReason}`);
-    await new Promise((r) => setTimeout(r, 1000));
-  }
-  throw new Error("the record did not reach the expected state within 120 polls");
-}
+// Two invented bending modes, sin(nπx/L) on the z channels [pub: Clough & Penzien, simply
+// supported beam shapes]; nothing near the design mode added below.
+const MODES = [1, 2].map((n) => ({
+  frequencyHz: 2.2 * n * n, dampingRatio: 0.01,
+  shape: (c: { x: number; direction: string }) => (c.direction === "z" ? Math.sin((n * Math.PI * c.x) / SPAN) : 0.05),
+}));
+const uploadRecord = () => uploadSimulatedRecord(key, ASSET, {
+  modes: MODES, sampleRateHz: FS, durationS: 120, temperatureC: 9, idPrefix: "e2e-analysis", agoMin: 15,
+});
 
 describe("Analysis screen", () => {
   let users: Record<string, { email: string; password: string }>;
@@ -66,7 +38,7 @@ describe("Analysis screen", () => {
 
   beforeAll(async () => {
     recordId = await uploadRecord();
-    await waitForRecord(recordId, (r) => r.status === "analysed");
+    await waitForRecord(key, recordId, (r) => r.status === "analysed");
     const b = await openBrowser();
     try {
       users = await readDemoSignIns(b.page, appUrl());
@@ -152,7 +124,7 @@ describe("Analysis screen", () => {
       expect(Number(await queued.getAttribute("data-queued"))).toBe(toQueue);
       expect(await panel.innerText()).toMatch(/Earlier results are kept/);
       await screenshot(page, "analysis-engineer-reprocessed");
-      const after = await waitForRecord(recordId, (r) => r.status === "analysed" && r.analysedSettingsVersion === version + 1);
+      const after = await waitForRecord(key, recordId, (r) => r.status === "analysed" && r.analysedSettingsVersion === version + 1);
       expect(after.analysedSettingsVersion).toBe(version + 1);
     });
 

@@ -8,9 +8,9 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ASSETS } from "@/db/seeds/larkspur/data";
 import { demoGatewayKey } from "@/db/seeds/larkspur/seed-demo";
-import { simulateAmbientRecord } from "@/lib/simulate";
 import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
 import { readDemoSignIns, screenshot, signIn } from "./flows";
+import { uploadSimulatedRecord, waitForRecord } from "./helpers/records";
 
 const ASSET = DEMO_ASSETS.find((a) => a.gateway.slug === "millrace");
 if (!ASSET) throw new Error("the demo seed has no Millrace Footbridge");
@@ -25,44 +25,6 @@ const MODES = [
   { frequencyHz: 3.6, dampingRatio: 0.012, shape: (c: { x: number; direction: string }) => (c.direction === "y" ? 1 : 0.03) },
   { frequencyHz: 7.9, dampingRatio: 0.01, shape: (c: { x: number; direction: string }) => (c.direction === "z" ? Math.sin((2 * Math.PI * c.x) / SPAN) : 0.02) },
 ];
-
-/** float32 little-endian, interleaved sample by sample (the upload contract of PRODUCT.md). */
-function f32Of(data: Float64Array[]): Blob {
-  const n = data[0].length;
-  const out = new Float32Array(n * data.length);
-  for (let k = 0; k < n; k++) for (let c = 0; c < data.length; c++) out[k * data.length + c] = data[c][k];
-  return new Blob([out.buffer], { type: "application/octet-stream" });
-}
-
-async function uploadSimulatedRecord(key: string): Promise<string> {
-  const layout = ASSET!.channels.map((c) => ({ code: c.code, x: c.positionM.x, direction: c.direction }));
-  const rec = simulateAmbientRecord({
-    modes: MODES.map((m) => ({ frequencyHz: m.frequencyHz, dampingRatio: m.dampingRatio, shape: layout.map(m.shape) })),
-    sampleRateHz: FS, durationS: DURATION_S, seed: Date.now() % 100000,
-  });
-  const form = new FormData();
-  form.set("meta", new Blob([JSON.stringify({
-    recordId: `e2e-${Date.now()}`, startedAt: new Date(Date.now() - 10 * 60_000).toISOString(), sampleRateHz: FS,
-    channels: layout.map((c) => c.code), units: "m/s2", temperatureC: 11.5,
-  })], { type: "application/json" }));
-  form.set("data", f32Of(rec.data), "record.f32");
-  const res = await fetch(`${appUrl()}/api/v1/records`, { method: "POST", headers: { authorization: `Bearer ${key}` }, body: form });
-  const body = (await res.json()) as { record?: { id: string }; error?: { message: string } };
-  if (res.status !== 202 || !body.record) throw new Error(`upload answered ${res.status}: ${JSON.stringify(body)}`);
-  return body.record.id;
-}
-
-/** Poll `GET /api/v1/records/:id` (as the sending gateway) until the worker has analysed it. */
-async function waitUntilAnalysed(key: string, id: string): Promise<void> {
-  for (let i = 0; i < 120; i++) {
-    const res = await fetch(`${appUrl()}/api/v1/records/${id}`, { headers: { authorization: `Bearer ${key}` } });
-    const body = (await res.json()) as { record: { status: string; failureReason: string | null } };
-    if (body.record.status === "analysed") return;
-    if (body.record.status === "failed" || body.record.status === "rejected") throw new Error(`record ${body.record.status}: ${body.record.failureReason}`);
-    await new Promise((r) => setTimeout(r, 1000));
-  }
-  throw new Error("the worker did not analyse the record within 120 polls");
-}
 
 /** Frequencies shown in the modal table, in Hz. */
 async function tableFrequencies(b: BrowserSession): Promise<{ index: number; hz: number }[]> {
@@ -83,8 +45,10 @@ describe("Records screens", () => {
   const recordUrl = () => `${appUrl()}/assets/${ASSET.id}/records/${recordId}`;
 
   beforeAll(async () => {
-    recordId = await uploadSimulatedRecord(key);
-    await waitUntilAnalysed(key, recordId);
+    recordId = await uploadSimulatedRecord(key, ASSET, {
+      modes: MODES, sampleRateHz: FS, durationS: DURATION_S, temperatureC: 11.5, idPrefix: "e2e", agoMin: 10,
+    });
+    await waitForRecord(key, recordId, (r) => r.status === "analysed");
     const b = await openBrowser();
     try {
       users = await readDemoSignIns(b.page, appUrl());
