@@ -2,6 +2,8 @@
  * What the Trends page hands to its client charts: the drift view of the asset (shape of
  * lib/services/drift/drift-view.service.ts DriftView, with the baseline reduced to its window).
  */
+import type { DriftViewDaily } from "@/lib/domain/drift";
+
 export interface TrendModel {
   kind: "linear" | "bilinear";
   knotC: number | null;
@@ -23,18 +25,7 @@ export interface TrendPoint {
 /** The prediction band of one UTC day (x = noon): lowest lower and highest upper ±3 s edge, mean prediction. */
 export interface TrendBandDay { x: number; lo: number; hi: number; mean: number }
 
-export interface TrendDaily {
-  dayMs: number;
-  residualHz: number | null;
-  residualLcl: number;
-  residualUcl: number;
-  ewma: number;
-  ewmaLcl: number;
-  ewmaUcl: number;
-  beyond: boolean;
-  residualBeyond: boolean;
-  outOfEnvelope: boolean;
-}
+export type TrendDaily = DriftViewDaily;
 
 export interface TrendMode {
   trackedModeId: string;

@@ -51,3 +51,17 @@ export interface AlertEvent {
   details: Record<string, unknown>;
   at: Date;
 }
+
+/** One aggregated day of a tracked mode in the drift view (service) and on the Trends charts. */
+export interface DriftViewDaily {
+  dayMs: number;
+  residualHz: number | null;
+  residualLcl: number;
+  residualUcl: number;
+  ewma: number;
+  ewmaLcl: number;
+  ewmaUcl: number;
+  beyond: boolean;
+  residualBeyond: boolean;
+  outOfEnvelope: boolean;
+}

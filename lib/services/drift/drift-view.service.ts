@@ -47,7 +47,7 @@ import { db } from "@/lib/db/knex";
 import { listAlertsOfOrganisation } from "@/lib/db/repos/alert.repo";
 import { findActiveBaseline } from "@/lib/db/repos/baseline.repo";
 import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
-import type { AlertState, Baseline } from "@/lib/domain/drift";
+import type { AlertState, Baseline, DriftViewDaily } from "@/lib/domain/drift";
 import type { Actor, AssetCondition } from "@/lib/domain/types";
 import { loadOwnAsset } from "@/lib/services/assets/asset.service";
 import { conditionWithAlerts } from "@/lib/services/alerts/condition";
@@ -69,18 +69,7 @@ export interface DriftViewPoint {
   dampingRatio: number | null;
 }
 
-export interface DriftViewDaily {
-  dayMs: number;
-  residualHz: number | null;
-  residualLcl: number;
-  residualUcl: number;
-  ewma: number;
-  ewmaLcl: number;
-  ewmaUcl: number;
-  beyond: boolean;
-  residualBeyond: boolean;
-  outOfEnvelope: boolean;
-}
+export type { DriftViewDaily } from "@/lib/domain/drift";
 
 export interface DriftViewLatest {
   atMs: number;
