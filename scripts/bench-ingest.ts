@@ -64,28 +64,34 @@ function standardRecord(): { firstFrame: Float32Array; restGz: Buffer; rawBytes:
   return { firstFrame: f32.slice(0, N_CH), restGz: gzipSync(bytes.subarray(4 * N_CH)), rawBytes: bytes.length };
 }
 
-/** A multipart body; the data is two gzip members (RFC 1952 §2.2): a unique first frame + the shared rest. */
-function body(rec: ReturnType<typeof standardRecord>, recordId: string, variant: number): { buf: Buffer; type: string } {
+/**
+ * A multipart body as pieces; the data is two gzip members (RFC 1952 §2.2): a unique first
+ * frame + the shared rest. Sent piece by piece, so the bench process does not copy 7 MB per
+ * upload on the cores the server is measured on (a gateway is another machine).
+ */
+function body(rec: ReturnType<typeof standardRecord>, recordId: string, variant: number): { pieces: Buffer[]; type: string } {
   const frame = rec.firstFrame.slice();
   frame[0] += variant * 1e-6;
   const b = `----bench${recordId}`;
   const meta = JSON.stringify({ recordId, startedAt: new Date().toISOString(), sampleRateHz: FS, channels: BENCH_CODES, units: "m/s2", temperatureC: 12 });
   const head = `--${b}\r\ncontent-disposition: form-data; name="meta"\r\n\r\n${meta}\r\n--${b}\r\ncontent-disposition: form-data; name="data"; filename="r.f32.gz"\r\ncontent-type: application/octet-stream\r\n\r\n`;
-  return { buf: Buffer.concat([Buffer.from(head), gzipSync(Buffer.from(frame.buffer)), rec.restGz, Buffer.from(`\r\n--${b}--\r\n`)]), type: `multipart/form-data; boundary=${b}` };
+  return { pieces: [Buffer.from(head), gzipSync(Buffer.from(frame.buffer)), rec.restGz, Buffer.from(`\r\n--${b}--\r\n`)], type: `multipart/form-data; boundary=${b}` };
 }
 
 const agent = new Agent({ keepAlive: true, maxSockets: GATEWAYS + 2 });
-function send(port: number, method: string, path: string, key: string, payload?: { buf: Buffer; type: string }): Promise<Answer> {
+const byteLength = (pieces: Buffer[]) => pieces.reduce((n, p) => n + p.length, 0);
+function send(port: number, method: string, path: string, key: string, payload?: { pieces: Buffer[]; type: string }): Promise<Answer> {
   return new Promise((resolve, reject) => {
     const headers: Record<string, string | number> = { authorization: `Bearer ${key}` };
-    if (payload) Object.assign(headers, { "content-type": payload.type, "content-length": payload.buf.length });
+    if (payload) Object.assign(headers, { "content-type": payload.type, "content-length": byteLength(payload.pieces) });
     const req = httpRequest({ host: "127.0.0.1", port, method, path, headers, agent }, (res) => {
       const chunks: Buffer[] = [];
       res.on("data", (c: Buffer) => chunks.push(c));
       res.on("end", () => resolve({ status: res.statusCode ?? 0, body: JSON.parse(Buffer.concat(chunks).toString("utf8") || "{}") as Answer["body"] }));
     });
     req.on("error", reject);
-    req.end(payload?.buf);
+    for (const p of payload?.pieces ?? []) req.write(p);
+    req.end();
   });
 }
 
@@ -182,7 +188,7 @@ async function main(): Promise<void> {
     const t0 = process.hrtime.bigint();
     const r = await send(ready.port, "POST", "/api/v1/records", key, payload);
     if (r.status !== 202) throw new Error(`upload answered ${r.status}: ${JSON.stringify(r.body)}`);
-    return { id: r.body.record!.id, ms: ms(process.hrtime.bigint() - t0), bytes: payload.buf.length };
+    return { id: r.body.record!.id, ms: ms(process.hrtime.bigint() - t0), bytes: byteLength(payload.pieces) };
   };
 
   // 1. Acceptance: one warm-up round, then ROUNDS back-to-back uploads per gateway, all at once.

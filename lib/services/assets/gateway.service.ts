@@ -4,9 +4,8 @@
  */
 import { db } from "@/lib/db/knex";
 import {
-  findGatewayById, findGatewayByKeyHash, insertGateway, listGatewaysOfAsset, revokeGatewayById, touchGateway,
+  findGatewayById, insertGateway, listGatewaysOfAsset, revokeGatewayById, touchLiveGatewayByKeyHash,
 } from "@/lib/db/repos/gateway.repo";
-import { findAssetById } from "@/lib/db/repos/asset.repo";
 import { GATEWAY_KEY_PREFIX, generateSecret, hashSecret } from "@/lib/auth/tokens";
 import type { Actor, Gateway } from "@/lib/domain/types";
 import { AppError } from "@/lib/http/errors";
@@ -71,10 +70,5 @@ export interface DeviceActor {
  */
 export async function deviceFromGatewayKey(bearer: string): Promise<DeviceActor | null> {
   if (!bearer.startsWith(GATEWAY_KEY_PREFIX)) return null;
-  const gateway = await findGatewayByKeyHash(db(), hashSecret(bearer));
-  if (!gateway || gateway.revokedAt) return null;
-  const asset = await findAssetById(db(), gateway.assetId);
-  if (!asset) return null;
-  await touchGateway(db(), gateway.id, new Date());
-  return { gatewayId: gateway.id, assetId: asset.id, organisationId: asset.organisationId };
+  return touchLiveGatewayByKeyHash(db(), hashSecret(bearer), new Date());
 }

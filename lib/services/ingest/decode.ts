@@ -33,36 +33,6 @@ export function dataFormatOf(mimeType: string): DataFormat {
   });
 }
 
-/** The first (or last) `n` bytes of a list of chunks. */
-function edgeBytes(chunks: Buffer[], n: number, fromEnd: boolean): Buffer {
-  const picked: Buffer[] = [];
-  let have = 0;
-  for (let i = 0; i < chunks.length && have < n; i++) {
-    const c = chunks[fromEnd ? chunks.length - 1 - i : i];
-    picked.push(c);
-    have += c.length;
-  }
-  const joined = Buffer.concat(fromEnd ? picked.reverse() : picked);
-  return fromEnd ? joined.subarray(Math.max(0, joined.length - n)) : joined.subarray(0, n);
-}
-
-/**
- * One buffer for a list of chunks without copying when they are consecutive views of one
- * ArrayBuffer (zlib's output slices of one large output chunk); else a joined copy.
- */
-function joinChunks(chunks: Buffer[], total: number): Buffer {
-  if (chunks.length === 0) return Buffer.alloc(0);
-  if (chunks.length === 1) return chunks[0];
-  const first = chunks[0];
-  let end = first.byteOffset;
-  const contiguous = chunks.every((c) => {
-    const ok = c.buffer === first.buffer && c.byteOffset === end;
-    end += c.length;
-    return ok;
-  });
-  return contiguous && total > 0 ? Buffer.from(first.buffer, first.byteOffset, total) : Buffer.concat(chunks, total);
-}
-
 /**
  * zlib output chunk for inflating: the size the gzip trailer states (ISIZE, the last four
  * bytes, RFC 1952 §2.3.1), so a record inflates into one output buffer instead of hundreds
@@ -70,10 +40,9 @@ function joinChunks(chunks: Buffer[], total: number): Buffer {
  * [64 KiB, 16 MiB], to the decoded limit and to 1032 × the compressed size (deflate's
  * largest ratio, zlib technical details), so a forged trailer cannot make it allocate much.
  */
-function outputChunkSize(chunks: Buffer[], compressedBytes: number, maxDecodedBytes: number): number {
-  const t = edgeBytes(chunks, 4, true);
-  const isize = t.length === 4 ? t.readUInt32LE(0) : 0;
-  const cap = Math.min(16 * 1024 * 1024, maxDecodedBytes + 1, 1032 * compressedBytes);
+function outputChunkSize(gz: Buffer, maxDecodedBytes: number): number {
+  const isize = gz.length >= 4 ? gz.readUInt32LE(gz.length - 4) : 0;
+  const cap = Math.min(16 * 1024 * 1024, maxDecodedBytes + 1, 1032 * gz.length);
   // + 64 KiB: room for earlier small members of a multi-member file (ISIZE is the last member's).
   return Math.max(64 * 1024, Math.min(isize + 64 * 1024, cap));
 }
@@ -83,16 +52,15 @@ const tooLargeDecoded = (maxDecodedBytes: number) => new AppError("payload_too_l
 });
 
 /**
- * Gunzip the chunks in one zlib call on the thread pool (input joined once; the output
- * buffer sized from the trailer), refusing output past the limit. One pass instead of a
- * stream of hundreds of writes, each a thread-pool round trip and a JS callback.
+ * Gunzip in one zlib call on the thread pool (the output buffer sized from the trailer),
+ * refusing output past the limit. One pass instead of a stream of hundreds of writes, each a
+ * thread-pool round trip and a JS callback.
  */
-function gunzipChunks(chunks: Buffer[], compressedBytes: number, maxDecodedBytes: number): Promise<Buffer> {
-  const input = joinChunks(chunks, compressedBytes);
+function gunzipBytes(input: Buffer, maxDecodedBytes: number): Promise<Buffer> {
   return new Promise((resolve, reject) => {
     // maxOutputLength refuses output past the limit (exactly the limit is accepted) and stops inflating there.
     const maxOutputLength = Math.min(maxDecodedBytes, bufferConstants.MAX_LENGTH);
-    gunzip(input, { chunkSize: outputChunkSize(chunks, compressedBytes, maxDecodedBytes), maxOutputLength }, (err, out) => {
+    gunzip(input, { chunkSize: outputChunkSize(input, maxDecodedBytes), maxOutputLength }, (err, out) => {
       if (!err) resolve(out);
       else reject((err as NodeJS.ErrnoException).code === "ERR_BUFFER_TOO_LARGE" ? tooLargeDecoded(maxDecodedBytes) : err);
     });
@@ -100,21 +68,20 @@ function gunzipChunks(chunks: Buffer[], compressedBytes: number, maxDecodedBytes
 }
 
 /**
- * Undo gzip when the data starts with a gzip header (1f 8b 08), given as received in chunks.
+ * Undo gzip when the data starts with a gzip header (1f 8b 08). Without gzip the bytes are
+ * returned as they are (the same view).
  * For float32 data a failed inflate means the bytes were raw samples after all (a valid gzip
  * stream with matching CRC cannot arise from sample values by chance); for CSV it is a broken
  * upload (400).
  * @throws AppError 413 when the inflated data exceeds `maxDecodedBytes`, 400 for broken gzip.
  */
-export async function inflateIfGzip(chunks: Buffer[], format: DataFormat, maxDecodedBytes: number): Promise<Buffer> {
-  const total = chunks.reduce((n, c) => n + c.length, 0);
-  const head = edgeBytes(chunks, 3, false);
-  if (!(head.length === 3 && head[0] === 0x1f && head[1] === 0x8b && head[2] === 0x08)) return joinChunks(chunks, total);
+export async function inflateIfGzip(bytes: Buffer, format: DataFormat, maxDecodedBytes: number): Promise<Buffer> {
+  if (!(bytes.length >= 3 && bytes[0] === 0x1f && bytes[1] === 0x8b && bytes[2] === 0x08)) return bytes;
   try {
-    return await gunzipChunks(chunks, total, maxDecodedBytes);
+    return await gunzipBytes(bytes, maxDecodedBytes);
   } catch (e) {
     if (e instanceof AppError) throw e;
-    if (format === "f32le") return joinChunks(chunks, total);
+    if (format === "f32le") return bytes;
     throw new AppError("bad_request", "The data part starts like gzip but does not decompress.", {
       details: { field: "data", rule: "gzip" }, fieldErrors: { data: ["The data part starts like gzip but does not decompress."] },
     });

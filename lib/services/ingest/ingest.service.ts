@@ -18,7 +18,7 @@ import { enqueueAnalysis } from "@/lib/jobs/analysis";
 import { blobStore, contentKey, sha256Hex } from "@/lib/storage";
 import type { DeviceActor } from "@/lib/services/assets/gateway.service";
 import { checkSamples, dataFormatOf, inflateIfGzip } from "./decode";
-import { readUploadParts } from "./multipart";
+import { readUploadParts, type UploadParts } from "./multipart";
 import { consumeUploadAllowance } from "./rate-limit";
 import { UploadRecordMeta } from "./schemas";
 
@@ -47,6 +47,16 @@ export async function ingestRecord(device: DeviceActor, req: UploadRequest): Pro
   await consumeUploadAllowance(device.gatewayId);
   const e = env();
   const parts = await readUploadParts(req.body, req.contentType, req.contentLength, e.UPLOAD_MAX_BYTES);
+  try {
+    return await checkAndStore(device, parts);
+  } finally {
+    // Only now: without gzip the stored bytes are the pooled buffer itself.
+    parts.release();
+  }
+}
+
+async function checkAndStore(device: DeviceActor, parts: UploadParts): Promise<IngestOutcome> {
+  const e = env();
   const rawMeta = parseMetaJson(parts.meta);
   const claimedAsset = (rawMeta as { assetId?: unknown }).assetId;
   if (claimedAsset !== undefined && claimedAsset !== device.assetId) {
@@ -65,8 +75,14 @@ export async function ingestRecord(device: DeviceActor, req: UploadRequest): Pro
   const channels = quiet(listChannelsOfAsset(db(), device.assetId));
   const tracked = quiet(listTrackedModesOfAsset(db(), device.assetId));
   const previous = quiet(findRecordByGatewayRecordId(db(), device.gatewayId, meta.recordId));
-  const inflated = quiet(inflateIfGzip(parts.data.chunks, format, e.UPLOAD_MAX_DECODED_BYTES));
-  assertChannelsConfigured(await channels, meta.channels);
+  const inflated = quiet(inflateIfGzip(parts.data.bytes, format, e.UPLOAD_MAX_DECODED_BYTES));
+  try {
+    assertChannelsConfigured(await channels, meta.channels);
+  } catch (err) {
+    // The pooled input goes back to the pool after this returns: let zlib finish reading it first.
+    await inflated.catch(() => undefined);
+    throw err;
+  }
   const bytes = await inflated;
   const sampleCount = checkSamples(bytes, format, meta.channels);
   const durationS = sampleCount / meta.sampleRateHz;
@@ -79,18 +95,18 @@ export async function ingestRecord(device: DeviceActor, req: UploadRequest): Pro
   if (existing) return sameOrConflict(existing, hash);
 
   const blobKey = contentKey(hash);
+  // The samples are stored first, then the row is written on its own (no transaction held open
+  // across the file write: 8 uploads at once would hold 8 pooled connections while writing).
+  // A crash between the two leaves an unreferenced blob, never a row without its samples; the
+  // gateway got no answer, sends again, and the content-addressed put finds the blob there.
+  await blobStore().put(blobKey, bytes);
   let record: VibrationRecord;
   try {
-    record = await db().transaction(async (trx) => {
-      const inserted = await insertRecord(trx, {
-        organisationId: device.organisationId, assetId: device.assetId, gatewayId: device.gatewayId,
-        gatewayRecordId: meta.recordId, startedAt: new Date(meta.startedAt), sampleRateHz: meta.sampleRateHz,
-        channels: meta.channels, units: meta.units, temperatureC: meta.temperatureC, environment: meta.environment ?? {},
-        contentHash: hash, blobKey, dataFormat: format, byteSize: bytes.length, sampleCount, durationS,
-      });
-      // The blob is written before the commit: a failed write rolls the row back.
-      await blobStore().put(blobKey, bytes);
-      return inserted;
+    record = await insertRecord(db(), {
+      organisationId: device.organisationId, assetId: device.assetId, gatewayId: device.gatewayId,
+      gatewayRecordId: meta.recordId, startedAt: new Date(meta.startedAt), sampleRateHz: meta.sampleRateHz,
+      channels: meta.channels, units: meta.units, temperatureC: meta.temperatureC, environment: meta.environment ?? {},
+      contentHash: hash, blobKey, dataFormat: format, byteSize: bytes.length, sampleCount, durationS,
     });
   } catch (err) {
     if (!(isAppError(err) && err.code === "conflict")) throw err;
