@@ -3,9 +3,11 @@
  * (`node scripts/test.mjs --services`: PostgreSQL and Redis on the TEST_* ports, a temp
  * folder, all stopped at the end; `--use-env` uses the stack the environment names instead):
  *  1. upload acceptance latency p50/p95 of the standard record (16 channels, 200 Hz, 600 s,
- *     float32 LE gzip) with 8 gateways uploading at once, each back to back, over loopback
- *     HTTP to a node:http server wrapping the real route handler (a child process; not the
- *     built Next app), and the server's CPU per upload;
+ *     float32 LE, sent gzip-compressed and plain) with 8 gateways uploading at once, each back
+ *     to back, over loopback HTTP to a node:http server wrapping the real route handler (a
+ *     child process; not the built Next app), and the server's CPU per upload; then the same
+ *     against a "floor" server doing only the contract's unavoidable work (see --serve-floor),
+ *     which bounds what any route can reach on this machine;
  *  2. sustained analysis throughput of one worker process (concurrency 1) draining a backlog,
  *     FDD/EFDD settings and, separately, FDD + SSI-COV settings: per wall minute and per
  *     minute of the worker's own CPU (the honest "per core" figure on a shared machine);
@@ -14,11 +16,12 @@
  *   --acceptance-only   stop after step 1;  --cpu-prof-dir=DIR   V8 CPU profiles of the server and workers
  */
 import { spawn, type ChildProcess } from "node:child_process";
-import { readFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { createServer, request as httpRequest, Agent, type IncomingMessage, type ServerResponse } from "node:http";
 import type { AddressInfo } from "node:net";
 import { Readable } from "node:stream";
-import { cpus, loadavg } from "node:os";
+import { cpus, loadavg, tmpdir } from "node:os";
+import path from "node:path";
 import { gzipSync } from "node:zlib";
 import { simplySupportedBeamModes, simulateAmbientRecord } from "@/lib/simulate";
 
@@ -52,7 +55,7 @@ function cpuSplit(pid: number): [number, number] {
 }
 
 /** The standard record once, float32 LE interleaved; the first frame is varied per upload. */
-function standardRecord(): { firstFrame: Float32Array; restGz: Buffer; rawBytes: number } {
+function standardRecord(): { firstFrame: Float32Array; restGz: Buffer; restRaw: Buffer; rawBytes: number } {
   const modes = simplySupportedBeamModes({ ...BENCH_BEAM, sensorPositionsM: benchSensorX(), modeCount: 4 });
   const { data } = simulateAmbientRecord({
     modes: modes.map((m) => ({ frequencyHz: m.frequencyHz, dampingRatio: 0.01, shape: m.shape })), sampleRateHz: FS, durationS: DURATION_S, seed: 1,
@@ -61,21 +64,25 @@ function standardRecord(): { firstFrame: Float32Array; restGz: Buffer; rawBytes:
   const f32 = new Float32Array(n * N_CH);
   for (let k = 0; k < n; k++) for (let c = 0; c < N_CH; c++) f32[k * N_CH + c] = data[c][k];
   const bytes = Buffer.from(f32.buffer);
-  return { firstFrame: f32.slice(0, N_CH), restGz: gzipSync(bytes.subarray(4 * N_CH)), rawBytes: bytes.length };
+  return { firstFrame: f32.slice(0, N_CH), restGz: gzipSync(bytes.subarray(4 * N_CH)), restRaw: bytes.subarray(4 * N_CH), rawBytes: bytes.length };
 }
 
+/** How the bench gateways send the samples: float32 LE gzip-compressed, or plain. */
+type Encoding = "gzip" | "plain";
+
 /**
- * A multipart body as pieces; the data is two gzip members (RFC 1952 §2.2): a unique first
- * frame + the shared rest. Sent piece by piece, so the bench process does not copy 7 MB per
- * upload on the cores the server is measured on (a gateway is another machine).
+ * A multipart body as pieces: a unique first frame + the shared rest of the samples (with
+ * gzip, two members, RFC 1952 §2.2). Sent piece by piece, so the bench process does not copy
+ * 7 MB per upload on the cores the server is measured on (a gateway is another machine).
  */
-function body(rec: ReturnType<typeof standardRecord>, recordId: string, variant: number): { pieces: Buffer[]; type: string } {
+function body(rec: ReturnType<typeof standardRecord>, recordId: string, variant: number, encoding: Encoding): { pieces: Buffer[]; type: string } {
   const frame = rec.firstFrame.slice();
   frame[0] += variant * 1e-6;
+  const samples = encoding === "gzip" ? [gzipSync(Buffer.from(frame.buffer)), rec.restGz] : [Buffer.from(frame.buffer), rec.restRaw];
   const b = `----bench${recordId}`;
   const meta = JSON.stringify({ recordId, startedAt: new Date().toISOString(), sampleRateHz: FS, channels: BENCH_CODES, units: "m/s2", temperatureC: 12 });
-  const head = `--${b}\r\ncontent-disposition: form-data; name="meta"\r\n\r\n${meta}\r\n--${b}\r\ncontent-disposition: form-data; name="data"; filename="r.f32.gz"\r\ncontent-type: application/octet-stream\r\n\r\n`;
-  return { pieces: [Buffer.from(head), gzipSync(Buffer.from(frame.buffer)), rec.restGz, Buffer.from(`\r\n--${b}--\r\n`)], type: `multipart/form-data; boundary=${b}` };
+  const head = `--${b}\r\ncontent-disposition: form-data; name="meta"\r\n\r\n${meta}\r\n--${b}\r\ncontent-disposition: form-data; name="data"; filename="r.f32${encoding === "gzip" ? ".gz" : ""}"\r\ncontent-type: application/octet-stream\r\n\r\n`;
+  return { pieces: [Buffer.from(head), ...samples, Buffer.from(`\r\n--${b}--\r\n`)], type: `multipart/form-data; boundary=${b}` };
 }
 
 const agent = new Agent({ keepAlive: true, maxSockets: GATEWAYS + 2 });
@@ -165,6 +172,38 @@ async function drain(vars: string[], ids: string[]): Promise<{ perWallMin: numbe
   return { perWallMin: ((ids.length - 1) / wallS) * 60, perCpuMin: ((ids.length - 1) / cpu) * 60, msEach: (wallS * 1000) / (ids.length - 1) };
 }
 
+interface Upload { id: string; ms: number; bytes: number }
+
+/**
+ * Acceptance latency against one server process: a warm-up (each gateway once, then all
+ * GATEWAYS at the same moment, so buffers and memory are as in steady operation), then ROUNDS
+ * back-to-back uploads per gateway, all gateways at once; then 3 uploads alone. The server's
+ * CPU (from /proc) is counted over the concurrent part.
+ */
+async function acceptance(pid: number, uploadAs: (gateway: number) => Promise<Upload>) {
+  const gateways = Array.from({ length: GATEWAYS }, (_, i) => i);
+  for (const g of gateways) await uploadAs(g);
+  await Promise.all(gateways.map(uploadAs));
+  const split0 = cpuSplit(pid);
+  const lat: number[] = [];
+  let sentBytes = 0;
+  await Promise.all(gateways.map(async (g) => {
+    for (let i = 0; i < ROUNDS; i++) {
+      const u = await uploadAs(g);
+      lat.push(u.ms);
+      sentBytes = u.bytes;
+    }
+  }));
+  const split1 = cpuSplit(pid);
+  const single: number[] = [];
+  for (let i = 0; i < 3; i++) single.push((await uploadAs(0)).ms);
+  return {
+    lat, single, sentBytes,
+    serverCpuMs: ((split1[0] + split1[1] - split0[0] - split0[1]) * 1000) / lat.length,
+    serverSysMs: ((split1[1] - split0[1]) * 1000) / lat.length,
+  };
+}
+
 async function main(): Promise<void> {
   const useEnv = process.argv.includes("--use-env");
   const load0 = loadavg();
@@ -182,39 +221,47 @@ async function main(): Promise<void> {
   process.stderr.write("stack ready; simulating the standard record…\n");
   const rec = standardRecord();
   let variant = 0;
-  const upload = async (key: string) => {
+  const upload = async (key: string, encoding: Encoding = "gzip") => {
     const v = ++variant;
-    const payload = body(rec, `bench-${process.pid}-${v}`, v);
+    const payload = body(rec, `bench-${process.pid}-${v}`, v, encoding);
     const t0 = process.hrtime.bigint();
     const r = await send(ready.port, "POST", "/api/v1/records", key, payload);
     if (r.status !== 202) throw new Error(`upload answered ${r.status}: ${JSON.stringify(r.body)}`);
     return { id: r.body.record!.id, ms: ms(process.hrtime.bigint() - t0), bytes: byteLength(payload.pieces) };
   };
 
-  // 1. Acceptance: one warm-up round, then ROUNDS back-to-back uploads per gateway, all at once.
+  // 1. Acceptance of the product's route, then of the bare-essentials floor (same record, same
+  //    client), each with gzip and with plain float32 data.
   const fddIds: string[] = [];
-  for (const k of ready.fddKeys) fddIds.push((await upload(k)).id);
-  process.stderr.write(`acceptance: ${GATEWAYS} gateways × ${ROUNDS} uploads…\n`);
-  const split0 = cpuSplit(ready.pid);
-  const cpu0 = split0[0] + split0[1];
-  const lat: number[] = [];
-  let sentBytes = 0;
-  await Promise.all(ready.fddKeys.map(async (k) => {
-    for (let i = 0; i < ROUNDS; i++) {
-      const u = await upload(k);
+  const product = async (encoding: Encoding) => {
+    process.stderr.write(`acceptance (${encoding}): ${GATEWAYS} gateways × ${ROUNDS} uploads…\n`);
+    return acceptance(ready.pid, (gw) => upload(ready.fddKeys[gw], encoding).then((u) => {
       fddIds.push(u.id);
-      lat.push(u.ms);
-      sentBytes = u.bytes;
-    }
-  }));
-  const serverCpuMs = ((cpuSeconds(ready.pid) - cpu0) * 1000) / lat.length;
-  const split1 = cpuSplit(ready.pid);
-  const serverSysMs = ((split1[1] - split0[1]) * 1000) / lat.length;
-  const single: number[] = [];
-  for (let i = 0; i < 3; i++) { const u = await upload(ready.fddKeys[0]); fddIds.push(u.id); single.push(u.ms); }
+      return u;
+    }));
+  };
+  const accGzip = await product("gzip");
+  const accPlain = await product("plain");
+  process.stderr.write("acceptance floor: receive, (gunzip,) check, SHA-256 and file write only…\n");
+  const floorServer = spawnWith([...vars, "LOG_LEVEL=warn"], ["--import", "tsx", "scripts/bench-ingest.ts", "--serve-floor"]);
+  const floorReady = JSON.parse((await waitLine(floorServer, /^READY (.*)$/, "the floor server"))[1]) as { port: number; pid: number };
+  const floor = (encoding: Encoding) => acceptance(floorReady.pid, async () => {
+    const v = ++variant;
+    const payload = { pieces: body(rec, `floor-${v}`, v, encoding).pieces.slice(1, 3), type: "application/octet-stream" };
+    const t0 = process.hrtime.bigint();
+    const r = await send(floorReady.port, "POST", "/floor", "", payload);
+    if (r.status !== 202) throw new Error(`floor upload answered ${r.status}`);
+    return { id: "", ms: ms(process.hrtime.bigint() - t0), bytes: byteLength(payload.pieces) };
+  });
+  const floorGzip = await floor("gzip");
+  const floorPlain = await floor("plain");
+  await stop(floorServer);
+  const summary = (name: string, a: Awaited<ReturnType<typeof acceptance>>) =>
+    `${name}: p50 ${median(a.lat).toFixed(0)} ms, p95 ${pct(a.lat, 95).toFixed(0)} ms, alone ${median(a.single).toFixed(0)} ms, server CPU ${a.serverCpuMs.toFixed(0)} ms/upload (kernel ${a.serverSysMs.toFixed(0)})`;
 
   if (process.argv.includes("--acceptance-only")) {
-    console.log(`acceptance p50 ${median(lat).toFixed(0)} ms, p95 ${pct(lat, 95).toFixed(0)} ms, alone ${median(single).toFixed(0)} ms, server CPU ${serverCpuMs.toFixed(0)} ms/upload (kernel ${serverSysMs.toFixed(0)}); load ${loadavg().map((x) => x.toFixed(2)).join(" ")}`);
+    for (const [name, a] of [["route gzip", accGzip], ["route plain", accPlain], ["floor gzip", floorGzip], ["floor plain", floorPlain]] as const) console.log(summary(name, a));
+    console.log(`load ${loadavg().map((x) => x.toFixed(2)).join(" ")}`);
     return;
   }
   // 2. Throughput: one worker drains the backlog; SSI-COV records queued while no worker runs.
@@ -253,14 +300,18 @@ async function main(): Promise<void> {
   console.log(`\nModewarden ingest bench — ${new Date().toISOString()}, Node ${process.version}, ${cpus().length} cores`);
   console.log(`load average before ${load0.map((x) => x.toFixed(2)).join(" ")}, after ${load1.map((x) => x.toFixed(2)).join(" ")}`);
   console.log(`upload path: loopback HTTP → in-process node:http server wrapping the route handler of POST /api/v1/records (not the built Next app)`);
-  console.log(`standard record: ${N_CH} ch × ${FS} Hz × ${DURATION_S} s float32 LE, ${(rec.rawBytes / 1e6).toFixed(2)} MB decoded, ${(sentBytes / 1e6).toFixed(2)} MB gzip multipart`);
+  console.log(`standard record: ${N_CH} ch × ${FS} Hz × ${DURATION_S} s float32 LE, ${(rec.rawBytes / 1e6).toFixed(2)} MB decoded; multipart ${(accGzip.sentBytes / 1e6).toFixed(2)} MB with gzip, ${(accPlain.sentBytes / 1e6).toFixed(2)} MB plain`);
+  console.log(`acceptance: ${GATEWAYS} gateways at once, each uploading back to back (${ROUNDS} each, after a warm-up); "floor" = a bare server doing only`);
+  console.log(`the contract's unavoidable work (pooled receive, gunzip, float32 check, SHA-256, blob write) with the same client`);
   console.log(`analysis: default settings v1 (FDD/EFDD) or + SSI-COV; ${spectral}\n`);
   console.log(row("measure", "value", "target"));
   console.log(row("-".repeat(62), "-".repeat(22), "-".repeat(12)));
-  console.log(row(`upload acceptance p50, ${GATEWAYS} gateways at once (${lat.length} uploads)`, `${median(lat).toFixed(0)} ms`, ""));
-  console.log(row(`upload acceptance p95, ${GATEWAYS} gateways at once`, `${pct(lat, 95).toFixed(0)} ms`, "≤ 300 ms"));
-  console.log(row("upload acceptance, one gateway alone (median of 3)", `${median(single).toFixed(0)} ms`, ""));
-  console.log(row("server CPU per upload (of which kernel)", `${serverCpuMs.toFixed(0)} (${serverSysMs.toFixed(0)}) ms`, ""));
+  for (const [name, a, f] of [["gzip", accGzip, floorGzip], ["plain float32", accPlain, floorPlain]] as const) {
+    console.log(row(`upload acceptance p50 / p95, ${name} (${a.lat.length} uploads)`, `${median(a.lat).toFixed(0)} / ${pct(a.lat, 95).toFixed(0)} ms`, "p95 ≤ 300 ms"));
+    console.log(row(`  floor p50 / p95, ${name}`, `${median(f.lat).toFixed(0)} / ${pct(f.lat, 95).toFixed(0)} ms`, ""));
+    console.log(row(`  one gateway alone (median of 3), ${name}`, `${median(a.single).toFixed(0)} ms`, ""));
+    console.log(row(`  server CPU per upload (kernel), ${name}; floor`, `${a.serverCpuMs.toFixed(0)} (${a.serverSysMs.toFixed(0)}); ${f.serverCpuMs.toFixed(0)} ms`, ""));
+  }
   console.log(row(`FDD/EFDD: records analysed per wall minute, 1 worker (${fddIds.length})`, `${fdd.perWallMin.toFixed(0)} (${fdd.msEach.toFixed(0)} ms each)`, "≥ 120/core"));
   console.log(row("FDD/EFDD: records per minute of worker CPU", fdd.perCpuMin.toFixed(0), "≥ 120/core"));
   console.log(row(`FDD + SSI-COV: records per wall minute, 1 worker (${ssiIds.length})`, `${ssi.perWallMin.toFixed(0)} (${ssi.msEach.toFixed(0)} ms each)`, ""));
@@ -335,6 +386,42 @@ async function runBenchServer(): Promise<void> {
   console.log(`READY ${JSON.stringify(ready)}`);
 }
 
+/**
+ * `--serve-floor`: the least work any server must do to accept a standard record under the
+ * upload contract, with the product's own pieces — the body read into a pooled buffer, gunzip,
+ * the float32 check, SHA-256 and the blob write — and none of the rest (no multipart parsing,
+ * authentication, rate limit, database or queue). Its latency bounds what the route can reach
+ * on this machine. Prints `READY <json>`.
+ */
+async function runFloorServer(): Promise<void> {
+  const [{ inflateIfGzip, checkSamples }, { contentKey, sha256Hex }, { FsBlobStore }, { PooledBytes, uploadBufferPool }] = await Promise.all([
+    import("@/lib/services/ingest/decode"), import("@/lib/storage/blob-store"), import("@/lib/storage/fs-blob-store"), import("@/lib/services/ingest/buffer-pool"),
+  ]);
+  const dir = mkdtempSync(path.join(tmpdir(), "mw-floor-"));
+  const store = new FsBlobStore(dir);
+  const server = createServer((req: IncomingMessage, res: ServerResponse) => {
+    void (async () => {
+      const body = new PooledBytes(uploadBufferPool(), Number(req.headers["content-length"] ?? 0));
+      try {
+        for await (const c of req) body.append(c as Buffer);
+        const bytes = await inflateIfGzip(body.view(), "f32le", 256 * 1024 * 1024);
+        checkSamples(bytes, "f32le", BENCH_CODES);
+        await store.put(contentKey(sha256Hex(bytes)), bytes);
+        res.writeHead(202).end("{}");
+      } finally {
+        body.release();
+      }
+    })().catch((e: unknown) => res.writeHead(500).end(JSON.stringify({ error: String(e) })));
+  });
+  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
+  process.on("SIGTERM", () => {
+    server.close();
+    rmSync(dir, { recursive: true, force: true });
+    process.exit(0);
+  });
+  console.log(`READY ${JSON.stringify({ port: (server.address() as AddressInfo).port, pid: process.pid })}`);
+}
+
 async function shutdown(): Promise<void> {
   agent.destroy();
   for (const c of [...children].reverse()) await stop(c).catch(() => undefined);
@@ -342,6 +429,8 @@ async function shutdown(): Promise<void> {
 
 if (process.argv.includes("--serve")) {
   void runBenchServer();
+} else if (process.argv.includes("--serve-floor")) {
+  void runFloorServer();
 } else {
   for (const s of ["SIGINT", "SIGTERM"] as const) process.on(s, () => void shutdown().then(() => process.exit(130)));
   main().then(shutdown, async (e: unknown) => {
