@@ -17,6 +17,8 @@ import { UpdateAnalysisSettingsInput } from "@/lib/services/analysis/schemas";
 import { listAnalysisSettingsHistory, updateAnalysisSettings } from "@/lib/services/analysis/settings.service";
 import { getIdentificationRates } from "@/lib/services/tracking/identification-rate.service";
 import { createTrackedMode } from "@/lib/services/tracking/tracked-mode.service";
+import * as ratesRoute from "@/app/api/v1/assets/[assetId]/identification-rates/route";
+import { call, tokenFor } from "./support/factories";
 import { CHANNELS, makeGatewayAsset, type GatewaySetup } from "./support/uploads";
 
 let g: GatewaySetup;
@@ -132,6 +134,26 @@ describe("identification rates of tracked modes", () => {
     expect(a).toMatchObject({ sought: 1, identified: 1, rate: 1 });
     expect(b).toMatchObject({ sought: 1, identified: 0, rate: 0 });
     expect(rates.unassignedModes).toBe(1);
+  });
+
+  it("GET …/identification-rates gives the same rates for a period, 401 without a token, 404 across organisations, 422 for a reversed period", async () => {
+    const params = { assetId: g.asset.id };
+    const q = `?from=${encodeURIComponent(MARCH.from.toISOString())}&to=${encodeURIComponent(MARCH.to.toISOString())}`;
+    expect((await call(ratesRoute.GET, { params, path: `/x${q}` })).status).toBe(401);
+    const token = await tokenFor(g.team.inspector);
+    const ok = await call(ratesRoute.GET, { params, token, path: `/x${q}` });
+    expect(ok.status).toBe(200);
+    const body = ok.body.identificationRates as { from: string; to: string; analysedRecords: number; unassignedModes: number; modes: { label: string; sought: number; identified: number }[] };
+    expect(body).toMatchObject({ from: MARCH.from.toISOString(), to: MARCH.to.toISOString(), analysedRecords: 3, unassignedModes: 3 });
+    expect(body.modes.find((m) => m.label === "B first torsion")).toMatchObject({ sought: 3, identified: 1 });
+    // Without a period: the 30 days before now.
+    const recent = await call(ratesRoute.GET, { params, token });
+    const period = recent.body.identificationRates as { from: string; to: string };
+    expect(Date.parse(period.to) - Date.parse(period.from)).toBe(30 * 86_400_000);
+    const reversed = `?from=${encodeURIComponent(MARCH.to.toISOString())}&to=${encodeURIComponent(MARCH.from.toISOString())}`;
+    expect((await call(ratesRoute.GET, { params, token, path: `/x${reversed}` })).status).toBe(422);
+    const stranger = await makeGatewayAsset();
+    expect((await call(ratesRoute.GET, { params, token: await tokenFor(stranger.team.owner), path: `/x${q}` })).status).toBe(404);
   });
 
   it("refuses an empty period and hides the asset from another organisation", async () => {

@@ -57,3 +57,12 @@ function bandChecks(v: BandLike, ctx: z.RefinementCtx): void {
   if (f !== null && lo !== null && lo > f) ctx.addIssue({ code: "custom", path: ["bandLowHz"], message: "The band must contain the nominal frequency." });
   if (f !== null && hi !== null && hi < f) ctx.addIssue({ code: "custom", path: ["bandHighHz"], message: "The band must contain the nominal frequency." });
 }
+
+const rateDate = (name: string) => z.preprocess(
+  (v) => (v === "" ? undefined : v),
+  z.coerce.date({ error: `${name} must be a date.` }).refine((d) => !Number.isNaN(d.getTime()), `${name} must be a date.`).optional(),
+);
+
+/** Period of `GET …/identification-rates`: ISO 8601 `from`/`to`, either may be left out. */
+export const IdentificationRatesQuery = z.object({ from: rateDate("From"), to: rateDate("To") })
+  .refine((v) => !v.from || !v.to || v.from < v.to, { path: ["to"], message: "The period must end after it starts." });
