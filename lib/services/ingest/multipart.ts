@@ -1,11 +1,11 @@
 /**
- * Streaming multipart/form-data reader of the upload route (busboy). Reads the two parts
+ * Streaming multipart/form-data reader of the upload route (./multipart-parser). Reads the two parts
  * of the contract, `meta` and `data`, counting bytes as they arrive: past the limit the
  * request is abandoned with 413, so nothing beyond the limit is ever buffered.
  */
-import busboy from "busboy";
 import { AppError } from "@/lib/http/errors";
 import { PooledBytes, uploadBufferPool } from "./buffer-pool";
+import { boundaryOf, MultipartParser } from "./multipart-parser";
 
 export interface UploadParts {
   /** The `meta` part as UTF-8 text. */
@@ -39,99 +39,59 @@ export async function readUploadParts(
   }
   if (declaredLength !== null && declaredLength > maxBytes + META_MAX_BYTES) throw tooLarge(maxBytes);
   if (!body) throw bad("The request has no body.", "body_required");
-  let bb: busboy.Busboy;
-  try {
-    bb = busboy({
-      headers: { "content-type": contentType },
-      // Part counts are checked by name (claim); these limits only stop a flood of parts.
-      limits: { fileSize: maxBytes, fieldSize: maxBytes, files: 4, fields: 4, parts: 4 },
-    });
-  } catch {
-    throw bad("The multipart body has no boundary.", "multipart_boundary");
-  }
+  const boundary = boundaryOf(contentType);
+  if (!boundary) throw bad("The multipart body has no boundary.", "multipart_boundary");
 
-  return new Promise<UploadParts>((resolve, reject) => {
-    let meta: string | null = null;
-    let data: { bytes: PooledBytes; mimeType: string } | null = null;
-    // The data part is copied as it arrives into one pooled buffer sized from Content-Length
-    // (no list of chunks, no joining copy, no fresh 7 MB per upload).
-    const expected = declaredLength !== null && Number.isFinite(declaredLength) && declaredLength > 0 ? declaredLength : 1024 * 1024;
-    const dataBytes = new PooledBytes(uploadBufferPool(), Math.min(expected, maxBytes + META_MAX_BYTES));
-    let failed = false;
-    const seen = new Set<string>();
-    let total = 0;
-    // The body is read straight from its web stream into the parser (no Node stream adapter
-    // and counting transform per chunk), with backpressure from busboy.
-    const reader = body.getReader();
-    const fail = (e: unknown) => {
-      if (failed) return;
-      failed = true;
-      dataBytes.release();
-      // Stop feeding the parser and drop the request; busboy itself is left to the
-      // garbage collector (destroying it from inside its own callbacks corrupts its state).
-      reader.cancel().catch(() => undefined);
-      reject(e instanceof AppError ? e : bad("The multipart body is malformed.", "multipart_malformed"));
-    };
-    const pump = async () => {
-      for (;;) {
-        const { done, value } = await reader.read();
-        if (failed) return;
-        if (done) {
-          bb.end();
-          return;
-        }
-        total += value.byteLength;
-        if (total > maxBytes + META_MAX_BYTES) return fail(tooLarge(maxBytes));
-        if (!bb.write(value)) await new Promise((r) => bb.once("drain", r));
-      }
-    };
-    const claim = (name: string): boolean => {
-      if (name !== "meta" && name !== "data") {
-        fail(bad(`Unknown part '${name}': send only meta and data.`, "unknown_part", name));
-        return false;
-      }
-      if (seen.has(name)) {
-        fail(bad(`The part '${name}' is sent twice.`, "repeated_part", name));
-        return false;
-      }
+  // The data part is copied as it arrives into one pooled buffer sized from Content-Length
+  // (no list of chunks, no joining copy, no fresh 7 MB per upload).
+  const expected = declaredLength !== null && Number.isFinite(declaredLength) && declaredLength > 0 ? declaredLength : 1024 * 1024;
+  const dataBytes = new PooledBytes(uploadBufferPool(), Math.min(expected, maxBytes + META_MAX_BYTES));
+  const metaChunks: Buffer[] = [];
+  let metaBytes = 0;
+  let dataType = "text/plain";
+  const seen = new Set<string>();
+  const parser = new MultipartParser(boundary, {
+    onPart: (h) => {
+      const name = h.name ?? "";
+      if (name !== "meta" && name !== "data") throw bad(`Unknown part '${name}': send only meta and data.`, "unknown_part", name);
+      if (seen.has(name)) throw bad(`The part '${name}' is sent twice.`, "repeated_part", name);
       seen.add(name);
-      return true;
-    };
-    bb.on("file", (name, stream, info) => {
-      if (!claim(name)) {
-        stream.resume();
-        return;
+      if (name === "data") {
+        // A part without Content-Type is text/plain (RFC 7578 §4.4), which the data check refuses with 415.
+        dataType = h.contentType ?? "text/plain";
+        return (b) => {
+          if (dataBytes.byteLength + b.length > maxBytes) throw tooLarge(maxBytes);
+          dataBytes.append(b);
+        };
       }
-      const chunks: Buffer[] = [];
-      stream.on("data", (c: Buffer) => (name === "data" ? dataBytes.append(c) : chunks.push(c)));
-      stream.on("limit", () => fail(tooLarge(maxBytes)));
-      stream.on("end", () => {
-        if (failed) return;
-        if (name === "meta") meta = Buffer.concat(chunks).toString("utf8");
-        else data = { bytes: dataBytes, mimeType: info.mimeType };
-      });
-    });
-    bb.on("field", (name, value, info) => {
-      if (!claim(name)) return;
-      if (info.valueTruncated) return fail(tooLarge(maxBytes));
-      if (name === "meta") meta = value;
-      else {
-        dataBytes.append(Buffer.from(value, "utf8"));
-        data = { bytes: dataBytes, mimeType: info.mimeType };
-      }
-    });
-    bb.on("partsLimit", () => fail(bad("Send exactly two parts: meta and data.", "parts_limit")));
-    bb.on("filesLimit", () => fail(bad("Send exactly two parts: meta and data.", "parts_limit")));
-    bb.on("fieldsLimit", () => fail(bad("Send exactly two parts: meta and data.", "parts_limit")));
-    bb.on("error", fail);
-    bb.on("close", () => {
-      if (failed) return;
-      if (meta === null) return fail(bad("The part 'meta' is missing.", "part_required", "meta"));
-      if (data === null) return fail(bad("The part 'data' is missing.", "part_required", "data"));
-      if (Buffer.byteLength(meta, "utf8") > META_MAX_BYTES) return fail(bad(`The part 'meta' exceeds ${META_MAX_BYTES} bytes.`, "meta_size", "meta"));
-      const d = data;
-      resolve({ meta, data: { bytes: d.bytes.view(), mimeType: d.mimeType }, release: () => dataBytes.release() });
-    });
-    pump().catch(fail);
+      return (b) => {
+        metaBytes += b.length;
+        if (metaBytes > META_MAX_BYTES) throw bad(`The part 'meta' exceeds ${META_MAX_BYTES} bytes.`, "meta_size", "meta");
+        metaChunks.push(Buffer.from(b));
+      };
+    },
+    onPartEnd: () => undefined,
   });
+
+  // The body is read straight from its web stream into the parser (no Node stream adapter).
+  const reader = body.getReader();
+  let total = 0;
+  try {
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      total += value.byteLength;
+      if (total > maxBytes + META_MAX_BYTES) throw tooLarge(maxBytes);
+      // After the close delimiter the rest (the epilogue) is only counted.
+      if (!parser.finished) parser.write(Buffer.from(value.buffer, value.byteOffset, value.byteLength));
+    }
+    parser.end();
+    if (!seen.has("meta")) throw bad("The part 'meta' is missing.", "part_required", "meta");
+    if (!seen.has("data")) throw bad("The part 'data' is missing.", "part_required", "data");
+  } catch (e) {
+    dataBytes.release();
+    reader.cancel().catch(() => undefined);
+    throw e instanceof AppError ? e : bad("The multipart body is malformed.", "multipart_malformed");
+  }
+  return { meta: Buffer.concat(metaChunks).toString("utf8"), data: { bytes: dataBytes.view(), mimeType: dataType }, release: () => dataBytes.release() };
 }
