@@ -62,6 +62,16 @@ export async function enqueueAnalysis(
 }
 
 /**
+ * Queue the analysis of a record just inserted. It cannot have a job yet, so none is looked up
+ * first (one Redis round trip less per upload); BullMQ keeps an existing job with the same id
+ * as it is anyway.
+ */
+export async function enqueueNewRecordAnalysis(recordId: string): Promise<void> {
+  const payload = AnalysisJob.parse({ recordId });
+  await getAnalysisQueue().add("analyse", { recordId: payload.recordId }, { jobId: analysisJobId(payload.recordId) });
+}
+
+/**
  * Whether the record has a job waiting, delayed or running: the unpinned one, or one pinned
  * to any of `versions` (e.g. the asset's latest settings version).
  */

@@ -14,9 +14,11 @@ export interface RecordWrite {
   sampleRateHz: number; channels: string[]; units: RecordUnits; temperatureC: number | null;
   environment: RecordEnvironment; contentHash: string; blobKey: string; dataFormat: DataFormat; byteSize: number;
   sampleCount: number; durationS: number;
+  /** Initial status: `received` (default) or `queued` when its analysis job is about to be added. */
+  status?: "received" | "queued";
 }
 
-/** Insert a new record in status `received`; a second (gateway, record id) raises AppError('conflict'). */
+/** Insert a new record (status `received` unless told); a second (gateway, record id) raises AppError('conflict'). */
 export async function insertRecord(db: Db, r: RecordWrite): Promise<VibrationRecord> {
   const [row] = await withDbErrors(() =>
     db("records")
@@ -25,7 +27,7 @@ export async function insertRecord(db: Db, r: RecordWrite): Promise<VibrationRec
         gateway_record_id: r.gatewayRecordId, started_at: r.startedAt, sample_rate_hz: r.sampleRateHz,
         channels: r.channels, units: r.units, temperature_c: r.temperatureC, environment: JSON.stringify(r.environment),
         content_hash: r.contentHash, blob_key: r.blobKey, data_format: r.dataFormat, byte_size: r.byteSize,
-        sample_count: r.sampleCount, duration_s: r.durationS,
+        sample_count: r.sampleCount, duration_s: r.durationS, status: r.status ?? "received",
       })
       .returning(COLS),
   );

@@ -14,7 +14,7 @@ import type { TrackedMode, VibrationRecord } from "@/lib/domain/records";
 import type { SensorChannel } from "@/lib/domain/types";
 import { AppError, isAppError } from "@/lib/http/errors";
 import { fieldErrorsOf } from "@/lib/http/validation";
-import { enqueueAnalysis } from "@/lib/jobs/analysis";
+import { enqueueNewRecordAnalysis } from "@/lib/jobs/analysis";
 import { blobStore, contentKey, sha256Hex } from "@/lib/storage";
 import type { DeviceActor } from "@/lib/services/assets/gateway.service";
 import { checkSamples, dataFormatOf, inflateIfGzip } from "./decode";
@@ -106,7 +106,7 @@ async function checkAndStore(device: DeviceActor, parts: UploadParts): Promise<I
       organisationId: device.organisationId, assetId: device.assetId, gatewayId: device.gatewayId,
       gatewayRecordId: meta.recordId, startedAt: new Date(meta.startedAt), sampleRateHz: meta.sampleRateHz,
       channels: meta.channels, units: meta.units, temperatureC: meta.temperatureC, environment: meta.environment ?? {},
-      contentHash: hash, blobKey, dataFormat: format, byteSize: bytes.length, sampleCount, durationS,
+      contentHash: hash, blobKey, dataFormat: format, byteSize: bytes.length, sampleCount, durationS, status: "queued",
     });
   } catch (err) {
     if (!(isAppError(err) && err.code === "conflict")) throw err;
@@ -119,14 +119,18 @@ async function checkAndStore(device: DeviceActor, parts: UploadParts): Promise<I
   return { outcome: "queued", record: await queueRecord(record) };
 }
 
-/** Queue the analysis; PostgreSQL stays the truth: if Redis is down the record stays `received` for the sweeper. */
+/**
+ * Queue the analysis of a record inserted as `queued`. PostgreSQL stays the truth: if Redis
+ * is down the record goes back to `received` and the sweeper queues it later (as it does for
+ * a `queued` record whose job was lost in a crash).
+ */
 async function queueRecord(record: VibrationRecord): Promise<VibrationRecord> {
   try {
-    await enqueueAnalysis(record.id);
+    await enqueueNewRecordAnalysis(record.id);
   } catch {
-    return record;
+    return (await updateRecordStatus(db(), record.id, { status: "received" }, ["queued"])) ?? record;
   }
-  return (await updateRecordStatus(db(), record.id, { status: "queued" }, ["received"])) ?? record;
+  return record;
 }
 
 function sameOrConflict(existing: VibrationRecord, hash: string): IngestOutcome {
