@@ -25,7 +25,7 @@ import path from "node:path";
 import { gzipSync } from "node:zlib";
 import { simplySupportedBeamModes, simulateAmbientRecord } from "@/lib/simulate";
 
-const N_CH = 16, FS = 200, DURATION_S = 600, GATEWAYS = 8, ROUNDS = 4, SSI_RECORDS = 6, IDLE_RUNS = 5, STALL_S = 120;
+const N_CH = 16, FS = 200, DURATION_S = 600, GATEWAYS = 8, ROUNDS = 8, SSI_RECORDS = 6, IDLE_RUNS = 5, STALL_S = 120;
 const ROOT = new URL("..", import.meta.url).pathname;
 const children: ChildProcess[] = [];
 
