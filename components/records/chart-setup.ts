@@ -20,7 +20,10 @@ export const SERIES = {
   text: "#5a6470",
 };
 
-/** Vertical shaded bands (x in data units) drawn under the datasets, each with a small label. */
+/**
+ * Vertical shaded bands (x in data units) drawn under the datasets, each with a small label;
+ * labels that would overlap a neighbour's drop to the next line.
+ */
 export function bandsPlugin(id: string, bands: { lo: number; hi: number; label: string }[]): Plugin<"scatter"> {
   return {
     id,
@@ -30,7 +33,8 @@ export function bandsPlugin(id: string, bands: { lo: number; hi: number; label: 
       const ctx = chart.ctx;
       ctx.save();
       ctx.font = "11px ui-sans-serif, system-ui, sans-serif";
-      for (const b of bands) {
+      const labelRowEnds: number[] = []; // right end (px) of the last label on each line
+      for (const b of [...bands].sort((p, q) => p.lo - q.lo)) {
         const x0 = Math.max(x.getPixelForValue(b.lo), chart.chartArea.left);
         const x1 = Math.min(x.getPixelForValue(b.hi), chart.chartArea.right);
         if (x1 <= x0) continue;
@@ -45,7 +49,12 @@ export function bandsPlugin(id: string, bands: { lo: number; hi: number; label: 
         ctx.lineTo(x1, bottom);
         ctx.stroke();
         ctx.fillStyle = "#0b5f57";
-        ctx.fillText(b.label, x0 + 3, top + 12, Math.max(40, x1 - x0 + 60));
+        const maxWidth = Math.max(40, x1 - x0 + 60);
+        const width = Math.min(ctx.measureText(b.label).width, maxWidth);
+        let line = labelRowEnds.findIndex((end) => end + 6 <= x0 + 3);
+        if (line < 0) line = labelRowEnds.push(0) - 1;
+        labelRowEnds[line] = x0 + 3 + width;
+        ctx.fillText(b.label, x0 + 3, top + 12 + 13 * line, maxWidth);
       }
       ctx.restore();
     },
