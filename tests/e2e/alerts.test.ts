@@ -171,6 +171,50 @@ describe("Alerts for an owner on a desktop", () => {
 });
 
 /**
+ * An engineer closes an alert as `repaired`: the alert page then offers to start a new
+ * baseline (a repair changes the frequencies the old baseline predicts) and the link opens
+ * the asset's Baselines screen. The alert is made for this test on a steady demo asset, with
+ * the evidence snapshot of the demo's Heron Reach alert, and removed afterwards.
+ */
+describe("An alert closed as repaired", () => {
+  const STEADY = "Millrace Footbridge";
+  let b: BrowserSession;
+  let made: { alertId: string; assetId: string } | null = null;
+  beforeAll(async () => {
+    const asset = await db()("assets").where({ name: STEADY }).first("id");
+    const heron = await db()("alerts as al").join("assets as a", "a.id", "al.asset_id").where("a.name", HERON).orderBy("al.raised_at", "desc").first("al.evidence");
+    const [row] = await db()("alerts").insert({ asset_id: asset.id, raised_at: new Date(), evidence: JSON.stringify(heron.evidence), state: "open" }).returning("id");
+    made = { alertId: row.id, assetId: asset.id };
+    await db()("alert_events").insert({ alert_id: row.id, actor_user_id: null, kind: "raised", details: "{}" });
+    b = await openBrowser();
+    const engineer = (await readDemoSignIns(b.page, appUrl())).engineer;
+    await signIn(b.page, appUrl(), engineer.email, engineer.password);
+    await b.page.waitForURL(`${appUrl()}/`);
+  });
+  afterAll(async () => {
+    await b?.close();
+    if (made) await db()("alerts").where({ id: made.alertId }).delete();
+    if (made) await recomputeDrift(made.assetId);
+  });
+
+  it("offers to start a new baseline, which opens the asset's Baselines screen", async () => {
+    const { page } = b;
+    await page.goto(`${appUrl()}/alerts/${made?.alertId}`);
+    expect(await page.getByRole("link", { name: "Start a new baseline" }).count()).toBe(0);
+    await page.getByLabel("Outcome").selectOption("repaired");
+    await page.getByLabel("Findings").fill("Loose bolts at the east bearing re-torqued; deck drainage cleared.");
+    await page.getByRole("button", { name: "Close alert" }).click();
+    await page.getByTestId("alert-status").locator('[data-alert-state="closed"]').waitFor();
+    const link = page.getByRole("link", { name: "Start a new baseline" });
+    await link.waitFor();
+    await screenshot(page, "alert-repaired-engineer");
+    await link.click();
+    await page.waitForURL(`${appUrl()}/assets/${made?.assetId}/baselines`);
+    await page.getByRole("form", { name: "Fit a new baseline" }).waitFor();
+  });
+});
+
+/**
  * Later e2e files (Overview, Reports) read the demo as seeded: Heron Reach with an open alert.
  * Remove the alert closed above and replay the asset's drift through the real service, which
  * raises it again at the same time from the same statistics and sets `alert` back.
