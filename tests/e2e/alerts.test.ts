@@ -12,7 +12,7 @@ import { closeDb, db } from "@/lib/db/knex";
 import { closeQueues } from "@/lib/jobs/queues";
 import { recomputeDrift } from "@/lib/services/drift/drift.service";
 import { appUrl, openBrowser, type BrowserSession } from "./helpers/browser";
-import { fetchAssetsInPage, readDemoSignIns, screenshot, signIn } from "./flows";
+import { fetchAssetsInPage, readDemoSignIns, screenshot, signIn, signInAsDemo } from "./flows";
 
 const PHONE = { width: 390, height: 844 };
 const HERON = "Heron Reach Cable-Stayed Footbridge";
@@ -146,9 +146,7 @@ describe("Alerts for an owner on a desktop", () => {
   let b: BrowserSession;
   beforeAll(async () => {
     b = await openBrowser();
-    const owner = (await readDemoSignIns(b.page, appUrl())).owner;
-    await signIn(b.page, appUrl(), owner.email, owner.password);
-    await b.page.waitForURL(`${appUrl()}/`);
+    await signInAsDemo(b.page, appUrl(), "owner");
   });
   afterAll(async () => {
     await b?.close();
@@ -187,9 +185,7 @@ describe("An alert closed as repaired", () => {
     made = { alertId: row.id, assetId: asset.id };
     await db()("alert_events").insert({ alert_id: row.id, actor_user_id: null, kind: "raised", details: "{}" });
     b = await openBrowser();
-    const engineer = (await readDemoSignIns(b.page, appUrl())).engineer;
-    await signIn(b.page, appUrl(), engineer.email, engineer.password);
-    await b.page.waitForURL(`${appUrl()}/`);
+    await signInAsDemo(b.page, appUrl(), "engineer");
   });
   afterAll(async () => {
     await b?.close();

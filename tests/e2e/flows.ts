@@ -25,6 +25,13 @@ export async function signIn(page: Page, appUrl: string, email: string, password
   await page.getByRole("button", { name: "Sign in" }).click();
 }
 
+/** Sign in as the demo user of `role` (read from the sign-in page) and wait for the portfolio. */
+export async function signInAsDemo(page: Page, appUrl: string, role: "admin" | "engineer" | "inspector" | "owner"): Promise<void> {
+  const user = (await readDemoSignIns(page, appUrl))[role];
+  await signIn(page, appUrl, user.email, user.password);
+  await page.waitForURL(`${appUrl}/`);
+}
+
 export async function signOut(page: Page): Promise<void> {
   await page.getByRole("button", { name: "Sign out" }).click();
   await page.waitForURL(/\/sign-in/);
