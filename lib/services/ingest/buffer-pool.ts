@@ -31,8 +31,9 @@ export class BufferPool {
       return b;
     }
     const size = Math.max(this.granule, Math.ceil(minBytes / this.granule) * this.granule);
-    // allocUnsafeSlow: a buffer of its own, never a slice of Node's shared 8 KiB pool.
-    return Buffer.allocUnsafeSlow(size);
+    // Shared memory of its own (never a slice of Node's 8 KiB pool), so the digest helper
+    // thread can read an upload in place (./digest-thread).
+    return Buffer.from(new SharedArrayBuffer(size));
   }
 
   /** Hand a buffer from {@link acquire} back; the caller must not touch it afterwards. */

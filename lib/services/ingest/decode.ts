@@ -10,6 +10,7 @@ import { constants as bufferConstants } from "node:buffer";
 import { gunzip } from "node:zlib";
 import { AppError } from "@/lib/http/errors";
 import type { DataFormat } from "@/lib/domain/records";
+import { digestUpload } from "./digest-thread";
 
 /** Fewest samples per channel an upload may carry (the identification engine's minimum). */
 export const MIN_SAMPLES = 256;
@@ -100,38 +101,31 @@ export function decodeSamples(bytes: Uint8Array, format: DataFormat, channels: s
 }
 
 /**
- * Check uploaded (already inflated) bytes as {@link decodeSamples} would, with the same
- * errors, and return the samples per channel. For float32 data this reads the bit patterns
- * in place (an exponent of all ones is ±Infinity or NaN, IEEE 754 §3.4) instead of decoding
- * millions of values the upload does not need; CSV has to be parsed to be checked.
+ * Check uploaded (already inflated) bytes as {@link decodeSamples} would, with the same errors,
+ * and hash them (SHA-256, hex). For float32 data this reads the bit patterns in place (an
+ * exponent of all ones is ±Infinity or NaN, IEEE 754 §3.4) instead of decoding millions of
+ * values the upload does not need; CSV has to be parsed to be checked. The hashing and the
+ * float32 scan run off the request thread when the bytes are in shared memory (./digest-thread).
  * @throws AppError 422 naming the rule.
  */
-export function checkSamples(bytes: Uint8Array, format: DataFormat, channels: string[]): number {
-  const n = format === "csv" ? decodeCsv(bytes, channels).sampleCount : checkFloat32(bytes, channels.length);
+export async function checkAndHashSamples(bytes: Uint8Array, format: DataFormat, channels: string[]): Promise<{ sampleCount: number; sha256: string }> {
+  let n: number;
+  let sha256: string;
+  if (format === "csv") {
+    n = decodeCsv(bytes, channels).sampleCount;
+    sha256 = (await digestUpload(bytes, 0)).sha256;
+  } else {
+    const nch = channels.length;
+    n = float32Frames(bytes, nch);
+    const digest = await digestUpload(bytes, n * nch);
+    if (digest.firstNonFinite >= 0) throw nonFinite(Math.floor(digest.firstNonFinite / nch), digest.firstNonFinite % nch);
+    sha256 = digest.sha256;
+  }
   if (n < MIN_SAMPLES) {
     throw invalid(`The record has ${n} samples per channel; at least ${MIN_SAMPLES} are needed.`, "too_short", { samples: n, minSamples: MIN_SAMPLES });
   }
-  return n;
+  return { sampleCount: n, sha256 };
 }
-
-const EXPONENT_MASK = 0x7f800000;
-
-function checkFloat32(bytes: Uint8Array, nch: number): number {
-  const n = float32Frames(bytes, nch);
-  const count = n * nch;
-  let bad = -1;
-  if (bytes.byteOffset % 4 === 0 && isLittleEndianHost) {
-    const words = new Uint32Array(bytes.buffer, bytes.byteOffset, count);
-    for (let i = 0; i < count; i++) if ((words[i] & EXPONENT_MASK) === EXPONENT_MASK) { bad = i; break; }
-  } else {
-    const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-    for (let i = 0; i < count; i++) if ((view.getUint32(4 * i, true) & EXPONENT_MASK) === EXPONENT_MASK) { bad = i; break; }
-  }
-  if (bad >= 0) throw nonFinite(Math.floor(bad / nch), bad % nch);
-  return n;
-}
-
-const isLittleEndianHost = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
 
 const nonFinite = (k: number, c: number) =>
   invalid(`Sample ${k + 1} of channel ${c + 1} is not a finite number.`, "non_finite", { sample: k + 1, channelIndex: c });

@@ -10,14 +10,15 @@ import { db } from "@/lib/db/knex";
 import { countRecordsWithBlob, findRecordByGatewayRecordId, insertRecord, updateRecordStatus } from "@/lib/db/repos/record.repo";
 import { listChannelsOfAsset } from "@/lib/db/repos/sensor-channel.repo";
 import { listTrackedModesOfAsset } from "@/lib/db/repos/tracked-mode.repo";
-import type { TrackedMode, VibrationRecord } from "@/lib/domain/records";
+import type { DataFormat, TrackedMode, VibrationRecord } from "@/lib/domain/records";
 import type { SensorChannel } from "@/lib/domain/types";
 import { AppError, isAppError } from "@/lib/http/errors";
 import { fieldErrorsOf } from "@/lib/http/validation";
 import { enqueueNewRecordAnalysis } from "@/lib/jobs/analysis";
-import { blobStore, contentKey, sha256Hex } from "@/lib/storage";
+import { blobStore, contentKey } from "@/lib/storage";
 import type { DeviceActor } from "@/lib/services/assets/gateway.service";
-import { checkSamples, dataFormatOf, inflateIfGzip } from "./decode";
+import { PooledBytes, uploadBufferPool } from "./buffer-pool";
+import { checkAndHashSamples, dataFormatOf, inflateIfGzip } from "./decode";
 import { readUploadParts, type UploadParts } from "./multipart";
 import { consumeUploadAllowance } from "./rate-limit";
 import { UploadRecordMeta } from "./schemas";
@@ -83,16 +84,29 @@ async function checkAndStore(device: DeviceActor, parts: UploadParts): Promise<I
     await inflated.catch(() => undefined);
     throw err;
   }
-  const bytes = await inflated;
-  const sampleCount = checkSamples(bytes, format, meta.channels);
-  const durationS = sampleCount / meta.sampleRateHz;
-  assertLongEnough(await tracked, durationS);
+  const decoded = await inflated;
+  // zlib's output is ordinary memory: copied (≈1 ms) into pooled shared memory so the hash and
+  // the scan can run off this thread like those of plain data.
+  const inflatedCopy = decoded === parts.data.bytes ? null : new PooledBytes(uploadBufferPool(), decoded.length);
+  inflatedCopy?.append(decoded);
+  try {
+    const bytes = inflatedCopy ? inflatedCopy.view() : decoded;
+    const { sampleCount, sha256: hash } = await checkAndHashSamples(bytes, format, meta.channels);
+    const durationS = sampleCount / meta.sampleRateHz;
+    assertLongEnough(await tracked, durationS);
+    const existing = await previous;
+    if (existing) return sameOrConflict(existing, hash);
+    return await storeNew(device, meta, { bytes, format, hash, sampleCount, durationS });
+  } finally {
+    inflatedCopy?.release();
+  }
+}
 
-  // One-shot SHA-256 (SHA-NI where the CPU has it): WebCrypto's digest copies the bytes on
-  // this thread first and measured no faster for a record of a few megabytes.
-  const hash = sha256Hex(bytes);
-  const existing = await previous;
-  if (existing) return sameOrConflict(existing, hash);
+/** Store checked samples once (content-addressed), insert the record and queue its analysis. */
+async function storeNew(device: DeviceActor, meta: UploadRecordMeta, data: {
+  bytes: Buffer; format: DataFormat; hash: string; sampleCount: number; durationS: number;
+}): Promise<IngestOutcome> {
+  const { bytes, format, hash, sampleCount, durationS } = data;
 
   const blobKey = contentKey(hash);
   // The samples are stored first, then the row is written on its own (no transaction held open
