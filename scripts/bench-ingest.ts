@@ -2,18 +2,21 @@
  * npm run bench:ingest — the gateway-to-result pipeline on a throw-away stack of its own
  * (`node scripts/test.mjs --services`: PostgreSQL and Redis on the TEST_* ports, a temp
  * folder, all stopped at the end; `--use-env` uses the stack the environment names instead):
+ *  0. memory warm-up: a throw-away process touches a few GiB and exits (see warmMemory);
+ *     `--cold-memory` skips it;
  *  1. upload acceptance latency p50/p95 of the standard record (16 channels, 200 Hz, 600 s,
  *     float32 LE, sent gzip-compressed and plain) with 8 gateways uploading at once, each back
- *     to back, over loopback HTTP to a node:http server wrapping the real route handler (a
- *     child process; not the built Next app), and the server's CPU per upload; then the same
- *     against a "floor" server doing only the contract's unavoidable work (see --serve-floor),
- *     which bounds what any route can reach on this machine;
+ *     to back, over loopback HTTP to the built app (`next start`, built first when .next does
+ *     not hold a build of this commit), and the server's CPU per upload; `--harness` sends them
+ *     to a node:http server wrapping the route handler instead (and reports its garbage
+ *     collections). Then the same against a "floor" server doing only the contract's
+ *     unavoidable work (see --serve-floor), which bounds what any route can reach here;
  *  2. sustained analysis throughput of one worker process (concurrency 1) draining a backlog,
  *     FDD/EFDD settings and, separately, FDD + SSI-COV settings: per wall minute and per
  *     minute of the worker's own CPU (the honest "per core" figure on a shared machine);
  *  3. idle end-to-end latency: upload → the gateway reads status `analysed`, worker idle.
  * Prints a table with the load average before and after; not a test (no pass/fail).
- *   --acceptance-only   stop after step 1;  --cpu-prof-dir=DIR   V8 CPU profiles of the server and workers
+ *   --acceptance-only   stop after step 1;  --cpu-prof-dir=DIR   V8 CPU profiles of the harness and workers
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import { mkdtempSync, readFileSync, rmSync } from "node:fs";
@@ -21,9 +24,11 @@ import { createServer, request as httpRequest, Agent, type IncomingMessage, type
 import type { AddressInfo } from "node:net";
 import { Readable } from "node:stream";
 import { cpus, loadavg, tmpdir } from "node:os";
+import { constants, PerformanceObserver } from "node:perf_hooks";
 import path from "node:path";
 import { gzipSync } from "node:zlib";
 import { simplySupportedBeamModes, simulateAmbientRecord } from "@/lib/simulate";
+import { APP_PROCESS_ENV, buildIfNeeded, nextBin } from "./stack/app.mjs";
 
 const N_CH = 16, FS = 200, DURATION_S = 600, GATEWAYS = 8, ROUNDS = 8, SSI_RECORDS = 6, IDLE_RUNS = 5, STALL_S = 120;
 const ROOT = new URL("..", import.meta.url).pathname;
@@ -52,6 +57,36 @@ function cpuSeconds(pid: number): number {
 function cpuSplit(pid: number): [number, number] {
   const f = readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1].split(" ");
   return [Number(f[11]) / 100, Number(f[12]) / 100];
+}
+
+/** Garbage collections of this process so far (perf_hooks "gc" entries): count and pause ms by kind. */
+function gcCounter(): () => GcTotals {
+  const totals: GcTotals = { minor: 0, major: 0, pauseMs: 0 };
+  new PerformanceObserver((list) => {
+    for (const e of list.getEntries()) {
+      const kind = (e as PerformanceEntry & { detail?: { kind?: number } }).detail?.kind ?? 0;
+      if (kind === constants.NODE_PERFORMANCE_GC_MAJOR) totals.major++;
+      else if (kind === constants.NODE_PERFORMANCE_GC_MINOR) totals.minor++;
+      totals.pauseMs += e.duration;
+    }
+  }).observe({ entryTypes: ["gc"] });
+  return () => ({ ...totals });
+}
+interface GcTotals { minor: number; major: number; pauseMs: number }
+/** The GC totals of a bench server (GET /bench/gc); null from a server without that route (the Next app). */
+async function gcOf(port: number): Promise<GcTotals | null> {
+  return new Promise((resolve, reject) => {
+    httpRequest({ host: "127.0.0.1", port, path: "/bench/gc", agent }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on("data", (c: Buffer) => chunks.push(c));
+      res.on("end", () => resolve(res.statusCode === 200 ? JSON.parse(Buffer.concat(chunks).toString("utf8")) as GcTotals : null));
+    }).on("error", reject).end();
+  });
+}
+
+/** Minor page faults of a process so far (/proc/<pid>/stat field 10). */
+function minorFaults(pid: number): number {
+  return Number(readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1].split(" ")[7]);
 }
 
 /** The standard record once, float32 LE interleaved; the first frame is varied per upload. */
@@ -100,6 +135,42 @@ function send(port: number, method: string, path: string, key: string, payload?:
     for (const p of payload?.pieces ?? []) req.write(p);
     req.end();
   });
+}
+
+/**
+ * The built app (`next start`) on its own port with the stack's environment and the app
+ * process environment of `npm start`; the harness process has set up the organisation, assets
+ * and gateways in the same database. Returns the port and the server's pid (whose CPU counts).
+ */
+async function startNextApp(vars: string[]): Promise<{ port: number; pid: number }> {
+  const port = 3190;
+  const appVars = Object.entries(APP_PROCESS_ENV).map(([k, v]) => `${k}=${v}`);
+  const app = spawnWith([...vars, ...appVars, "NODE_ENV=production", "NEXTAUTH_SECRET=bench-only-secret-not-for-use-0123456789", "LOG_LEVEL=warn",
+    "UPLOAD_RATE_LIMIT_PER_MINUTE=100000", `APP_URL=http://127.0.0.1:${port}`], [nextBin(ROOT), "start", "-H", "127.0.0.1", "-p", String(port)]);
+  await waitLine(app, /Ready in|started server/i, "next start");
+  app.stderr!.on("data", (c: Buffer) => process.stderr.write(`[app] ${String(c)}`));
+  for (let i = 0; i < 100; i++) {
+    const ok = await new Promise<boolean>((resolve) => httpRequest({ host: "127.0.0.1", port, path: "/api/health", agent }, (res) => { res.resume(); resolve(res.statusCode === 200); })
+      .on("error", () => resolve(false)).end());
+    if (ok) break;
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  // spawnWith runs env(1), which execs node in place: the child's pid is the server's.
+  return { port, pid: app.pid! };
+}
+
+/**
+ * This machine is a VM whose memory is backed on first touch: writing a new 7.7 MB blob into
+ * never-touched memory cost 11 ms of kernel time here, into memory touched before 1.7 ms. A
+ * server that has been up for a while writes its page cache into recycled memory, so before
+ * measuring, a throw-away process touches min(8 GiB, 60 % of MemAvailable) and exits.
+ */
+async function warmMemory(): Promise<number> {
+  const available = Number(/MemAvailable:\s+(\d+) kB/.exec(readFileSync("/proc/meminfo", "utf8"))?.[1] ?? 0) * 1024;
+  const chunks = Math.floor(Math.min(8 * 2 ** 30, 0.6 * available) / 2 ** 28);
+  await new Promise<void>((resolve, reject) => spawn(process.execPath, ["-e", `const a = []; for (let i = 0; i < ${chunks}; i++) a.push(Buffer.alloc(2 ** 28, 1));`], { stdio: "ignore" })
+    .once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`memory warm-up failed (${code})`)))));
+  return chunks / 4;
 }
 
 /** --cpu-prof-dir=DIR: the server and each worker write a V8 CPU profile there when they stop. */
@@ -180,11 +251,14 @@ interface Upload { id: string; ms: number; bytes: number }
  * back-to-back uploads per gateway, all gateways at once; then 3 uploads alone. The server's
  * CPU (from /proc) is counted over the concurrent part.
  */
-async function acceptance(pid: number, uploadAs: (gateway: number) => Promise<Upload>) {
+async function acceptance(pid: number, port: number, uploadAs: (gateway: number) => Promise<Upload>) {
   const gateways = Array.from({ length: GATEWAYS }, (_, i) => i);
   for (const g of gateways) await uploadAs(g);
   await Promise.all(gateways.map(uploadAs));
+  const gc0 = await gcOf(port);
   const split0 = cpuSplit(pid);
+  const faults0 = minorFaults(pid);
+  const client0 = process.cpuUsage();
   const lat: number[] = [];
   let sentBytes = 0;
   await Promise.all(gateways.map(async (g) => {
@@ -195,12 +269,18 @@ async function acceptance(pid: number, uploadAs: (gateway: number) => Promise<Up
     }
   }));
   const split1 = cpuSplit(pid);
+  const faults = minorFaults(pid) - faults0;
+  const gc1 = await gcOf(port);
+  const client = process.cpuUsage(client0);
   const single: number[] = [];
   for (let i = 0; i < 3; i++) single.push((await uploadAs(0)).ms);
   return {
     lat, single, sentBytes,
     serverCpuMs: ((split1[0] + split1[1] - split0[0] - split0[1]) * 1000) / lat.length,
     serverSysMs: ((split1[1] - split0[1]) * 1000) / lat.length,
+    faultsPerUpload: faults / lat.length,
+    gc: gc0 && gc1 ? { major: (gc1.major - gc0.major) / lat.length, minor: (gc1.minor - gc0.minor) / lat.length, pauseMs: (gc1.pauseMs - gc0.pauseMs) / lat.length } : null,
+    clientCpuMs: (client.user + client.system) / 1000 / lat.length,
   };
 }
 
@@ -216,8 +296,14 @@ async function main(): Promise<void> {
   }
   await new Promise<void>((resolve, reject) => spawn("env", [...vars, process.execPath, "--import", "tsx", "scripts/migrate.ts"], { cwd: ROOT, stdio: "ignore" })
     .once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`migrations failed (${code})`)))));
+  const harness = process.argv.includes("--harness");
+  // `next build` inherits this process's environment (PATH, HOME), as under `npm start`.
+  // eslint-disable-next-line no-restricted-properties
+  if (!harness) await buildIfNeeded(ROOT, { ...process.env, NEXT_TELEMETRY_DISABLED: "1" });
+  const warmedGiB = process.argv.includes("--cold-memory") ? 0 : await warmMemory();
   const server = spawnWith([...vars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"], [...profFlags(), "--import", "tsx", "scripts/bench-ingest.ts", "--serve"]);
   const ready = JSON.parse((await waitLine(server, /^READY (.*)$/, "the bench server"))[1]) as Ready;
+  if (!harness) Object.assign(ready, await startNextApp(vars));
   process.stderr.write("stack ready; simulating the standard record…\n");
   const rec = standardRecord();
   let variant = 0;
@@ -235,7 +321,7 @@ async function main(): Promise<void> {
   const fddIds: string[] = [];
   const product = async (encoding: Encoding) => {
     process.stderr.write(`acceptance (${encoding}): ${GATEWAYS} gateways × ${ROUNDS} uploads…\n`);
-    return acceptance(ready.pid, (gw) => upload(ready.fddKeys[gw], encoding).then((u) => {
+    return acceptance(ready.pid, ready.port, (gw) => upload(ready.fddKeys[gw], encoding).then((u) => {
       fddIds.push(u.id);
       return u;
     }));
@@ -245,7 +331,7 @@ async function main(): Promise<void> {
   process.stderr.write("acceptance floor: receive, (gunzip,) check, SHA-256 and file write only…\n");
   const floorServer = spawnWith([...vars, "LOG_LEVEL=warn"], ["--import", "tsx", "scripts/bench-ingest.ts", "--serve-floor"]);
   const floorReady = JSON.parse((await waitLine(floorServer, /^READY (.*)$/, "the floor server"))[1]) as { port: number; pid: number };
-  const floor = (encoding: Encoding) => acceptance(floorReady.pid, async () => {
+  const floor = (encoding: Encoding) => acceptance(floorReady.pid, floorReady.port, async () => {
     const v = ++variant;
     const payload = { pieces: body(rec, `floor-${v}`, v, encoding).pieces.slice(1, 3), type: "application/octet-stream" };
     const t0 = process.hrtime.bigint();
@@ -257,7 +343,7 @@ async function main(): Promise<void> {
   const floorPlain = await floor("plain");
   await stop(floorServer);
   const summary = (name: string, a: Awaited<ReturnType<typeof acceptance>>) =>
-    `${name}: p50 ${median(a.lat).toFixed(0)} ms, p95 ${pct(a.lat, 95).toFixed(0)} ms, alone ${median(a.single).toFixed(0)} ms, server CPU ${a.serverCpuMs.toFixed(0)} ms/upload (kernel ${a.serverSysMs.toFixed(0)})`;
+    `${name}: p50 ${median(a.lat).toFixed(0)} ms, p95 ${pct(a.lat, 95).toFixed(0)} ms, alone ${median(a.single).toFixed(0)} ms, server CPU ${a.serverCpuMs.toFixed(0)} ms/upload (kernel ${a.serverSysMs.toFixed(0)}), bench client CPU ${a.clientCpuMs.toFixed(0)} ms/upload, server page faults ${a.faultsPerUpload.toFixed(0)}/upload, GC per upload ${a.gc ? `${a.gc.major.toFixed(2)} major ${a.gc.minor.toFixed(1)} minor ${a.gc.pauseMs.toFixed(1)} ms paused` : "n/a"}`;
 
   if (process.argv.includes("--acceptance-only")) {
     for (const [name, a] of [["route gzip", accGzip], ["route plain", accPlain], ["floor gzip", floorGzip], ["floor plain", floorPlain]] as const) console.log(summary(name, a));
@@ -299,7 +385,10 @@ async function main(): Promise<void> {
   const row = (a: string, b: string, c: string) => `| ${a.padEnd(62)} | ${b.padStart(22)} | ${c.padEnd(12)} |`;
   console.log(`\nModewarden ingest bench — ${new Date().toISOString()}, Node ${process.version}, ${cpus().length} cores`);
   console.log(`load average before ${load0.map((x) => x.toFixed(2)).join(" ")}, after ${load1.map((x) => x.toFixed(2)).join(" ")}`);
-  console.log(`upload path: loopback HTTP → in-process node:http server wrapping the route handler of POST /api/v1/records (not the built Next app)`);
+  console.log(harness
+    ? "upload path: loopback HTTP → a node:http harness wrapping the route handler of POST /api/v1/records (--harness; not the built app)"
+    : "upload path: loopback HTTP → the built app (next start), POST /api/v1/records");
+  console.log(warmedGiB ? `memory: ${warmedGiB.toFixed(2)} GiB touched by a throw-away process first (warmMemory)` : "memory: cold (--cold-memory)");
   console.log(`standard record: ${N_CH} ch × ${FS} Hz × ${DURATION_S} s float32 LE, ${(rec.rawBytes / 1e6).toFixed(2)} MB decoded; multipart ${(accGzip.sentBytes / 1e6).toFixed(2)} MB with gzip, ${(accPlain.sentBytes / 1e6).toFixed(2)} MB plain`);
   console.log(`acceptance: ${GATEWAYS} gateways at once, each uploading back to back (${ROUNDS} each, after a warm-up); "floor" = a bare server doing only`);
   console.log(`the contract's unavoidable work (pooled receive, gunzip, float32 check, SHA-256, blob write) with the same client`);
@@ -362,7 +451,9 @@ async function runBenchServer(): Promise<void> {
   const ssi = await makeAsset("Bench SSI", 1);
   await settingsRepo.insertAnalysisSettingsVersion(db(), ssi.asset.id, { ...DEFAULT_ANALYSIS_SETTINGS, methods: ["fdd", "ssi"] }, null);
 
+  const gcTotals = gcCounter();
   const server = createServer((req: IncomingMessage, res: ServerResponse) => {
+    if (req.url === "/bench/gc") return void res.end(JSON.stringify(gcTotals()));
     void (async () => {
       const url = new URL(req.url ?? "/", "http://127.0.0.1");
       const headers = new Headers();
@@ -394,19 +485,21 @@ async function runBenchServer(): Promise<void> {
  * on this machine. Prints `READY <json>`.
  */
 async function runFloorServer(): Promise<void> {
-  const [{ inflateIfGzip, checkSamples }, { contentKey, sha256Hex }, { FsBlobStore }, { PooledBytes, uploadBufferPool }] = await Promise.all([
+  const [{ inflateIfGzip, checkAndHashSamples }, { contentKey }, { FsBlobStore }, { PooledBytes, uploadBufferPool }] = await Promise.all([
     import("@/lib/services/ingest/decode"), import("@/lib/storage/blob-store"), import("@/lib/storage/fs-blob-store"), import("@/lib/services/ingest/buffer-pool"),
   ]);
   const dir = mkdtempSync(path.join(tmpdir(), "mw-floor-"));
   const store = new FsBlobStore(dir);
+  const gcTotals = gcCounter();
   const server = createServer((req: IncomingMessage, res: ServerResponse) => {
+    if (req.url === "/bench/gc") return void res.end(JSON.stringify(gcTotals()));
     void (async () => {
       const body = new PooledBytes(uploadBufferPool(), Number(req.headers["content-length"] ?? 0));
       try {
         for await (const c of req) body.append(c as Buffer);
         const bytes = await inflateIfGzip(body.view(), "f32le", 256 * 1024 * 1024);
-        checkSamples(bytes, "f32le", BENCH_CODES);
-        await store.put(contentKey(sha256Hex(bytes)), bytes);
+        const { sha256 } = await checkAndHashSamples(bytes, "f32le", BENCH_CODES);
+        await store.put(contentKey(sha256), bytes);
         res.writeHead(202).end("{}");
       } finally {
         body.release();

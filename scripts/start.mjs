@@ -13,7 +13,7 @@ import { resolvePgPaths, startPostgres } from "./stack/postgres.mjs";
 import { startRedis } from "./stack/redis.mjs";
 import { killStale, Supervisor } from "./stack/supervisor.mjs";
 import { ensureDebianPackage, ensureNodeModules } from "./stack/system.mjs";
-import { buildIfNeeded, printDemoUsers, TSX, nextBin } from "./stack/app.mjs";
+import { APP_PROCESS_ENV, buildIfNeeded, printDemoUsers, TSX, nextBin } from "./stack/app.mjs";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const t0 = Date.now();
@@ -82,7 +82,7 @@ async function main() {
   await buildIfNeeded(root, env);
 
   supervisor.start("app", process.execPath, [nextBin(root), "start", "-H", "127.0.0.1", "-p", String(cfg.appPort)], {
-    env: { ...env, NODE_ENV: "production" },
+    env: { ...env, ...APP_PROCESS_ENV, NODE_ENV: "production" },
     cwd: root,
   });
   stoppers.push(["app", () => supervisor.stop("app")]);

@@ -19,7 +19,7 @@ import { resolvePgPaths, startPostgres } from "./stack/postgres.mjs";
 import { startRedis } from "./stack/redis.mjs";
 import { Supervisor } from "./stack/supervisor.mjs";
 import { ensureDebianPackage, ensureNodeModules } from "./stack/system.mjs";
-import { buildIfNeeded, nextBin, TSX } from "./stack/app.mjs";
+import { APP_PROCESS_ENV, buildIfNeeded, nextBin, TSX } from "./stack/app.mjs";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const ALL_STAGES = ["lint", "types", "unit", "integration", "e2e"];
@@ -113,7 +113,7 @@ async function e2eStage() {
   const appLog = path.join(cfg.dataDir, "app.log");
   const workerLog = path.join(cfg.dataDir, "worker.log");
   supervisor.start("app", process.execPath, [nextBin(root), "start", "-H", "127.0.0.1", "-p", String(cfg.appPort)], {
-    env: { ...env, NODE_ENV: "production" }, cwd: root, logFile: appLog,
+    env: { ...env, ...APP_PROCESS_ENV, NODE_ENV: "production" }, cwd: root, logFile: appLog,
   });
   supervisor.start("worker", process.execPath, [...TSX, path.join(root, "workers/index.ts")], { env, cwd: root, logFile: workerLog });
   // Stop order: app, worker, then the services.

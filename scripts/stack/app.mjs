@@ -9,6 +9,18 @@ export const TSX = ["--import", "tsx"];
 
 export const nextBin = (root) => path.join(root, "node_modules", "next", "dist", "bin", "next");
 
+/**
+ * Environment of the app server process (`next start`). glibc keeps freed blocks of up to
+ * 64 MiB in the heap for reuse, up to 256 MiB of them, instead of unmapping them and faulting
+ * fresh pages in for the next upload: each gzip upload inflates into a new ~8 MB buffer, and
+ * on this machine (a VM) a page fault costs several µs. Measured by `npm run bench:ingest`
+ * (README, "Ingest performance").
+ */
+export const APP_PROCESS_ENV = {
+  MALLOC_MMAP_THRESHOLD_: String(64 * 1024 * 1024),
+  MALLOC_TRIM_THRESHOLD_: String(256 * 1024 * 1024),
+};
+
 async function gitState(root) {
   const head = await run("git", ["rev-parse", "HEAD"], { cwd: root, allowFail: true });
   const status = await run("git", ["status", "--porcelain"], { cwd: root, allowFail: true });
