@@ -72,7 +72,7 @@ function gcCounter(): () => GcTotals {
   }).observe({ entryTypes: ["gc"] });
   return () => ({ ...totals });
 }
-interface GcTotals { minor: number; major: number; pauseMs: number }
+interface GcTotals { minor: number; major: number; pauseMs: number; poolMadeBytes?: number }
 /** The GC totals of a bench server (GET /bench/gc); null from a server without that route (the Next app). */
 async function gcOf(port: number): Promise<GcTotals | null> {
   return new Promise((resolve, reject) => {
@@ -142,11 +142,10 @@ function send(port: number, method: string, path: string, key: string, payload?:
  * process environment of `npm start`; the harness process has set up the organisation, assets
  * and gateways in the same database. Returns the port and the server's pid (whose CPU counts).
  */
-async function startNextApp(vars: string[]): Promise<{ port: number; pid: number }> {
+async function startNextApp(vars: string[], appVars: string[]): Promise<{ port: number; pid: number }> {
   const port = 3190;
-  const appVars = Object.entries(APP_PROCESS_ENV).map(([k, v]) => `${k}=${v}`);
   const app = spawnWith([...vars, ...appVars, "NODE_ENV=production", "NEXTAUTH_SECRET=bench-only-secret-not-for-use-0123456789", "LOG_LEVEL=warn",
-    "UPLOAD_RATE_LIMIT_PER_MINUTE=100000", `APP_URL=http://127.0.0.1:${port}`], [nextBin(ROOT), "start", "-H", "127.0.0.1", "-p", String(port)]);
+    "UPLOAD_RATE_LIMIT_PER_MINUTE=100000", `APP_URL=http://127.0.0.1:${port}`], [...profFlags(), nextBin(ROOT), "start", "-H", "127.0.0.1", "-p", String(port)]);
   await waitLine(app, /Ready in|started server/i, "next start");
   app.stderr!.on("data", (c: Buffer) => process.stderr.write(`[app] ${String(c)}`));
   for (let i = 0; i < 100; i++) {
@@ -279,6 +278,7 @@ async function acceptance(pid: number, port: number, uploadAs: (gateway: number)
     serverCpuMs: ((split1[0] + split1[1] - split0[0] - split0[1]) * 1000) / lat.length,
     serverSysMs: ((split1[1] - split0[1]) * 1000) / lat.length,
     faultsPerUpload: faults / lat.length,
+    poolMadeMiB: gc0 && gc1 ? ((gc1.poolMadeBytes ?? 0) - (gc0.poolMadeBytes ?? 0)) / 2 ** 20 : null,
     gc: gc0 && gc1 ? { major: (gc1.major - gc0.major) / lat.length, minor: (gc1.minor - gc0.minor) / lat.length, pauseMs: (gc1.pauseMs - gc0.pauseMs) / lat.length } : null,
     clientCpuMs: (client.user + client.system) / 1000 / lat.length,
   };
@@ -301,9 +301,10 @@ async function main(): Promise<void> {
   // eslint-disable-next-line no-restricted-properties
   if (!harness) await buildIfNeeded(ROOT, { ...process.env, NEXT_TELEMETRY_DISABLED: "1" });
   const warmedGiB = process.argv.includes("--cold-memory") ? 0 : await warmMemory();
-  const server = spawnWith([...vars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"], [...profFlags(), "--import", "tsx", "scripts/bench-ingest.ts", "--serve"]);
+  const appVars = Object.entries(APP_PROCESS_ENV).map(([k, v]) => `${k}=${v}`);
+  const server = spawnWith([...vars, ...appVars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"], [...profFlags(), "--import", "tsx", "scripts/bench-ingest.ts", "--serve"]);
   const ready = JSON.parse((await waitLine(server, /^READY (.*)$/, "the bench server"))[1]) as Ready;
-  if (!harness) Object.assign(ready, await startNextApp(vars));
+  if (!harness) Object.assign(ready, await startNextApp(vars, appVars));
   process.stderr.write("stack ready; simulating the standard record…\n");
   const rec = standardRecord();
   let variant = 0;
@@ -329,7 +330,7 @@ async function main(): Promise<void> {
   const accGzip = await product("gzip");
   const accPlain = await product("plain");
   process.stderr.write("acceptance floor: receive, (gunzip,) check, SHA-256 and file write only…\n");
-  const floorServer = spawnWith([...vars, "LOG_LEVEL=warn"], ["--import", "tsx", "scripts/bench-ingest.ts", "--serve-floor"]);
+  const floorServer = spawnWith([...vars, ...appVars, "LOG_LEVEL=warn"], ["--import", "tsx", "scripts/bench-ingest.ts", "--serve-floor"]);
   const floorReady = JSON.parse((await waitLine(floorServer, /^READY (.*)$/, "the floor server"))[1]) as { port: number; pid: number };
   const floor = (encoding: Encoding) => acceptance(floorReady.pid, floorReady.port, async () => {
     const v = ++variant;
@@ -343,7 +344,7 @@ async function main(): Promise<void> {
   const floorPlain = await floor("plain");
   await stop(floorServer);
   const summary = (name: string, a: Awaited<ReturnType<typeof acceptance>>) =>
-    `${name}: p50 ${median(a.lat).toFixed(0)} ms, p95 ${pct(a.lat, 95).toFixed(0)} ms, alone ${median(a.single).toFixed(0)} ms, server CPU ${a.serverCpuMs.toFixed(0)} ms/upload (kernel ${a.serverSysMs.toFixed(0)}), bench client CPU ${a.clientCpuMs.toFixed(0)} ms/upload, server page faults ${a.faultsPerUpload.toFixed(0)}/upload, GC per upload ${a.gc ? `${a.gc.major.toFixed(2)} major ${a.gc.minor.toFixed(1)} minor ${a.gc.pauseMs.toFixed(1)} ms paused` : "n/a"}`;
+    `${name}: p50 ${median(a.lat).toFixed(0)} ms, p95 ${pct(a.lat, 95).toFixed(0)} ms, alone ${median(a.single).toFixed(0)} ms, server CPU ${a.serverCpuMs.toFixed(0)} ms/upload (kernel ${a.serverSysMs.toFixed(0)}), bench client CPU ${a.clientCpuMs.toFixed(0)} ms/upload, server page faults ${a.faultsPerUpload.toFixed(0)}/upload, GC per upload ${a.gc ? `${a.gc.major.toFixed(2)} major ${a.gc.minor.toFixed(1)} minor ${a.gc.pauseMs.toFixed(1)} ms paused` : "n/a"}, pool buffers made ${a.poolMadeMiB ?? "n/a"} MiB`;
 
   if (process.argv.includes("--acceptance-only")) {
     for (const [name, a] of [["route gzip", accGzip], ["route plain", accPlain], ["floor gzip", floorGzip], ["floor plain", floorPlain]] as const) console.log(summary(name, a));
@@ -452,8 +453,9 @@ async function runBenchServer(): Promise<void> {
   await settingsRepo.insertAnalysisSettingsVersion(db(), ssi.asset.id, { ...DEFAULT_ANALYSIS_SETTINGS, methods: ["fdd", "ssi"] }, null);
 
   const gcTotals = gcCounter();
+  const { uploadBufferPool } = await import("@/lib/services/ingest/buffer-pool");
   const server = createServer((req: IncomingMessage, res: ServerResponse) => {
-    if (req.url === "/bench/gc") return void res.end(JSON.stringify(gcTotals()));
+    if (req.url === "/bench/gc") return void res.end(JSON.stringify({ ...gcTotals(), poolMadeBytes: uploadBufferPool().allocatedBytes }));
     void (async () => {
       const url = new URL(req.url ?? "/", "http://127.0.0.1");
       const headers = new Headers();
@@ -497,9 +499,13 @@ async function runFloorServer(): Promise<void> {
       const body = new PooledBytes(uploadBufferPool(), Number(req.headers["content-length"] ?? 0));
       try {
         for await (const c of req) body.append(c as Buffer);
-        const bytes = await inflateIfGzip(body.view(), "f32le", 256 * 1024 * 1024);
-        const { sha256 } = await checkAndHashSamples(bytes, "f32le", BENCH_CODES);
-        await store.put(contentKey(sha256), bytes);
+        const inflated = await inflateIfGzip(body.view(), "f32le", 256 * 1024 * 1024);
+        try {
+          const { sha256 } = await checkAndHashSamples(inflated.bytes, "f32le", BENCH_CODES);
+          await store.put(contentKey(sha256), inflated.bytes);
+        } finally {
+          inflated.release();
+        }
         res.writeHead(202).end("{}");
       } finally {
         body.release();

@@ -10,15 +10,19 @@ export const TSX = ["--import", "tsx"];
 export const nextBin = (root) => path.join(root, "node_modules", "next", "dist", "bin", "next");
 
 /**
- * Environment of the app server process (`next start`). glibc keeps freed blocks of up to
- * 64 MiB in the heap for reuse, up to 256 MiB of them, instead of unmapping them and faulting
- * fresh pages in for the next upload: each gzip upload inflates into a new ~8 MB buffer, and
- * on this machine (a VM) a page fault costs several µs. Measured by `npm run bench:ingest`
- * (README, "Ingest performance").
+ * Environment of the app server process (`next start`), for uploads of several megabytes:
+ *  - glibc keeps freed blocks of up to 64 MiB in its heap for reuse, up to 256 MiB of them,
+ *    instead of unmapping them and faulting fresh pages in for the next upload (each gzip
+ *    upload inflates into a new ~8 MB buffer);
+ *  - glibc asks for transparent huge pages for its heap (glibc.malloc.hugetlb=1, glibc ≥ 2.35;
+ *    the kernel's THP mode here is `madvise`), so an 8 MB buffer is four 2 MiB pages instead of
+ *    2048 small ones: fewer page faults and TLB misses, which are dear on this machine (a VM).
+ * Measured by `npm run bench:ingest` (README, "Ingest performance").
  */
 export const APP_PROCESS_ENV = {
   MALLOC_MMAP_THRESHOLD_: String(64 * 1024 * 1024),
   MALLOC_TRIM_THRESHOLD_: String(256 * 1024 * 1024),
+  GLIBC_TUNABLES: "glibc.malloc.hugetlb=1",
 };
 
 async function gitState(root) {

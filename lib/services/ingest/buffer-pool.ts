@@ -11,6 +11,7 @@ const MIB = 1024 * 1024;
 export class BufferPool {
   private readonly free: Buffer[] = [];
   private freeBytes = 0;
+  private madeBytes = 0;
 
   /**
    * @param maxFreeBytes most bytes kept while not lent (the rest is left to the collector)
@@ -31,6 +32,7 @@ export class BufferPool {
       return b;
     }
     const size = Math.max(this.granule, Math.ceil(minBytes / this.granule) * this.granule);
+    this.madeBytes += size;
     // Shared memory of its own (never a slice of Node's 8 KiB pool), so the digest helper
     // thread can read an upload in place (./digest-thread).
     return Buffer.from(new SharedArrayBuffer(size));
@@ -44,6 +46,11 @@ export class BufferPool {
     this.freeBytes += buf.length;
     this.free.sort((a, b) => b.length - a.length);
     while (this.freeBytes > this.maxFreeBytes && this.free.length) this.freeBytes -= this.free.pop()!.length;
+  }
+
+  /** Bytes of all buffers this pool has made so far (for tests and diagnostics: reuse keeps it flat). */
+  get allocatedBytes(): number {
+    return this.madeBytes;
   }
 
   /** Bytes currently kept for reuse (for tests and diagnostics). */

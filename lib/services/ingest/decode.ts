@@ -6,10 +6,10 @@
  *  - application/octet-stream: float32 little-endian, interleaved sample by sample;
  *  - either gzip-compressed, recognised by the gzip header (1f 8b 08).
  */
-import { constants as bufferConstants } from "node:buffer";
-import { gunzip } from "node:zlib";
+import { createGunzip } from "node:zlib";
 import { AppError } from "@/lib/http/errors";
 import type { DataFormat } from "@/lib/domain/records";
+import { type BufferPool, PooledBytes, uploadBufferPool } from "./buffer-pool";
 import { digestUpload } from "./digest-thread";
 
 /** Fewest samples per channel an upload may carry (the identification engine's minimum). */
@@ -34,55 +34,66 @@ export function dataFormatOf(mimeType: string): DataFormat {
   });
 }
 
-/**
- * zlib output chunk for inflating: the size the gzip trailer states (ISIZE, the last four
- * bytes, RFC 1952 §2.3.1), so a record inflates into one output buffer instead of hundreds
- * of 16 KiB ones (each a main-thread callback, a copy and garbage). Only a hint: clamped to
- * [64 KiB, 16 MiB], to the decoded limit and to 1032 × the compressed size (deflate's
- * largest ratio, zlib technical details), so a forged trailer cannot make it allocate much.
- */
-function outputChunkSize(gz: Buffer, maxDecodedBytes: number): number {
-  const isize = gz.length >= 4 ? gz.readUInt32LE(gz.length - 4) : 0;
-  const cap = Math.min(16 * 1024 * 1024, maxDecodedBytes + 1, 1032 * gz.length);
-  // + 64 KiB: room for earlier small members of a multi-member file (ISIZE is the last member's).
-  return Math.max(64 * 1024, Math.min(isize + 64 * 1024, cap));
-}
-
 const tooLargeDecoded = (maxDecodedBytes: number) => new AppError("payload_too_large", `The data exceeds ${maxDecodedBytes} bytes once decompressed.`, {
   details: { field: "data", rule: "max_decoded_bytes", limitBytes: maxDecodedBytes },
 });
 
+/** zlib's output piece: 1 MiB, so a standard record is 8 thread-pool round trips and its pieces die young. */
+const INFLATE_PIECE_BYTES = 1024 * 1024;
+
 /**
- * Gunzip in one zlib call on the thread pool (the output buffer sized from the trailer),
- * refusing output past the limit. One pass instead of a stream of hundreds of writes, each a
- * thread-pool round trip and a JS callback.
+ * Gunzip (every member, RFC 1952 §2.2) on zlib's thread pool straight into pooled memory, piece
+ * by piece, refusing output past the limit as soon as it is passed. The pieces are garbage at
+ * once; an ~8 MB output buffer per upload kept alive across the checks would be old-generation
+ * external memory, which is what schedules V8's full collections.
  */
-function gunzipBytes(input: Buffer, maxDecodedBytes: number): Promise<Buffer> {
+function gunzipInto(input: Buffer, out: PooledBytes, maxDecodedBytes: number): Promise<void> {
   return new Promise((resolve, reject) => {
-    // maxOutputLength refuses output past the limit (exactly the limit is accepted) and stops inflating there.
-    const maxOutputLength = Math.min(maxDecodedBytes, bufferConstants.MAX_LENGTH);
-    gunzip(input, { chunkSize: outputChunkSize(input, maxDecodedBytes), maxOutputLength }, (err, out) => {
-      if (!err) resolve(out);
-      else reject((err as NodeJS.ErrnoException).code === "ERR_BUFFER_TOO_LARGE" ? tooLargeDecoded(maxDecodedBytes) : err);
+    const z = createGunzip({ chunkSize: INFLATE_PIECE_BYTES });
+    z.on("data", (piece: Buffer) => {
+      if (out.byteLength + piece.length > maxDecodedBytes) {
+        z.destroy();
+        reject(tooLargeDecoded(maxDecodedBytes));
+        return;
+      }
+      out.append(piece);
     });
+    z.on("end", () => resolve());
+    z.on("error", reject);
+    z.end(input);
   });
 }
 
+/** Bytes ready to check and store, and how to hand their memory back. */
+export interface InflatedBytes {
+  bytes: Buffer;
+  /** Return pooled memory (a no-op when `bytes` is the input itself). */
+  release(): void;
+}
+
 /**
- * Undo gzip when the data starts with a gzip header (1f 8b 08). Without gzip the bytes are
- * returned as they are (the same view).
+ * Undo gzip when the data starts with a gzip header (1f 8b 08), into a buffer of `pool` (sized
+ * from the gzip trailer's ISIZE, RFC 1952 §2.3.1, a hint only: it grows as needed). Without gzip
+ * the bytes are returned as they are (the same view).
  * For float32 data a failed inflate means the bytes were raw samples after all (a valid gzip
  * stream with matching CRC cannot arise from sample values by chance); for CSV it is a broken
  * upload (400).
  * @throws AppError 413 when the inflated data exceeds `maxDecodedBytes`, 400 for broken gzip.
  */
-export async function inflateIfGzip(bytes: Buffer, format: DataFormat, maxDecodedBytes: number): Promise<Buffer> {
-  if (!(bytes.length >= 3 && bytes[0] === 0x1f && bytes[1] === 0x8b && bytes[2] === 0x08)) return bytes;
+export async function inflateIfGzip(bytes: Buffer, format: DataFormat, maxDecodedBytes: number, pool: BufferPool = uploadBufferPool()): Promise<InflatedBytes> {
+  if (!(bytes.length >= 3 && bytes[0] === 0x1f && bytes[1] === 0x8b && bytes[2] === 0x08)) return { bytes, release: () => undefined };
+  // ISIZE is the last member's size: + 64 KiB of room for earlier small members. The hint is
+  // clamped to the limit and to 1032 × the input (deflate's largest ratio, zlib technical
+  // details), so a forged trailer cannot make it reserve much.
+  const isize = bytes.length >= 4 ? bytes.readUInt32LE(bytes.length - 4) : 0;
+  const out = new PooledBytes(pool, Math.max(INFLATE_PIECE_BYTES, Math.min(isize + 64 * 1024, maxDecodedBytes, 1032 * bytes.length)));
   try {
-    return await gunzipBytes(bytes, maxDecodedBytes);
+    await gunzipInto(bytes, out, maxDecodedBytes);
+    return { bytes: out.view(), release: () => out.release() };
   } catch (e) {
+    out.release();
     if (e instanceof AppError) throw e;
-    if (format === "f32le") return bytes;
+    if (format === "f32le") return { bytes, release: () => undefined };
     throw new AppError("bad_request", "The data part starts like gzip but does not decompress.", {
       details: { field: "data", rule: "gzip" }, fieldErrors: { data: ["The data part starts like gzip but does not decompress."] },
     });

@@ -17,7 +17,6 @@ import { fieldErrorsOf } from "@/lib/http/validation";
 import { enqueueNewRecordAnalysis } from "@/lib/jobs/analysis";
 import { blobStore, contentKey } from "@/lib/storage";
 import type { DeviceActor } from "@/lib/services/assets/gateway.service";
-import { PooledBytes, uploadBufferPool } from "./buffer-pool";
 import { checkAndHashSamples, dataFormatOf, inflateIfGzip } from "./decode";
 import { readUploadParts, type UploadParts } from "./multipart";
 import { consumeUploadAllowance } from "./rate-limit";
@@ -80,17 +79,14 @@ async function checkAndStore(device: DeviceActor, parts: UploadParts): Promise<I
   try {
     assertChannelsConfigured(await channels, meta.channels);
   } catch (err) {
-    // The pooled input goes back to the pool after this returns: let zlib finish reading it first.
-    await inflated.catch(() => undefined);
+    // The pooled input goes back to the pool after this returns: let zlib finish reading it
+    // first, and hand its pooled output back.
+    (await inflated.catch(() => null))?.release();
     throw err;
   }
   const decoded = await inflated;
-  // zlib's output is ordinary memory: copied (≈1 ms) into pooled shared memory so the hash and
-  // the scan can run off this thread like those of plain data.
-  const inflatedCopy = decoded === parts.data.bytes ? null : new PooledBytes(uploadBufferPool(), decoded.length);
-  inflatedCopy?.append(decoded);
   try {
-    const bytes = inflatedCopy ? inflatedCopy.view() : decoded;
+    const bytes = decoded.bytes;
     const { sampleCount, sha256: hash } = await checkAndHashSamples(bytes, format, meta.channels);
     const durationS = sampleCount / meta.sampleRateHz;
     assertLongEnough(await tracked, durationS);
@@ -98,7 +94,7 @@ async function checkAndStore(device: DeviceActor, parts: UploadParts): Promise<I
     if (existing) return sameOrConflict(existing, hash);
     return await storeNew(device, meta, { bytes, format, hash, sampleCount, durationS });
   } finally {
-    inflatedCopy?.release();
+    decoded.release();
   }
 }
 
