@@ -16,10 +16,12 @@
  *     minute of the worker's own CPU (the honest "per core" figure on a shared machine);
  *  3. idle end-to-end latency: upload → the gateway reads status `analysed`, worker idle.
  * Prints a table with the load average before and after; not a test (no pass/fail).
- *   --acceptance-only   stop after step 1;  --cpu-prof-dir=DIR   V8 CPU profiles of the harness and workers
+ *   --acceptance-only   stop after step 1;  --cpu-prof-dir=DIR   V8 CPU profiles of the app, harness and workers
+ *   --harness --node-body   the harness hands the ingest service the Node request stream itself
+ *                           (no web-stream Request body; the cost of that body, measured)
  */
 import { spawn, type ChildProcess } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import { createServer, request as httpRequest, Agent, type IncomingMessage, type ServerResponse } from "node:http";
 import type { AddressInfo } from "node:net";
 import { Readable } from "node:stream";
@@ -82,6 +84,22 @@ async function gcOf(port: number): Promise<GcTotals | null> {
       res.on("end", () => resolve(res.statusCode === 200 ? JSON.parse(Buffer.concat(chunks).toString("utf8")) as GcTotals : null));
     }).on("error", reject).end();
   });
+}
+
+/** CPU seconds (user + system) of all processes named `comm` (/proc/<pid>/stat): PostgreSQL's backends, Redis. */
+function cpuOfComm(comm: string): number {
+  let total = 0;
+  for (const pid of readdirSync("/proc").filter((d) => /^\d+$/.test(d))) {
+    try {
+      const stat = readFileSync(`/proc/${pid}/stat`, "utf8");
+      if (!stat.includes(`(${comm})`)) continue;
+      const f = stat.split(") ")[1].split(" ");
+      total += (Number(f[11]) + Number(f[12])) / 100;
+    } catch {
+      // the process ended meanwhile
+    }
+  }
+  return total;
 }
 
 /** Minor page faults of a process so far (/proc/<pid>/stat field 10). */
@@ -257,6 +275,7 @@ async function acceptance(pid: number, port: number, uploadAs: (gateway: number)
   const gc0 = await gcOf(port);
   const split0 = cpuSplit(pid);
   const faults0 = minorFaults(pid);
+  const services0 = cpuOfComm("postgres") + cpuOfComm("redis-server");
   const client0 = process.cpuUsage();
   const lat: number[] = [];
   let sentBytes = 0;
@@ -269,6 +288,7 @@ async function acceptance(pid: number, port: number, uploadAs: (gateway: number)
   }));
   const split1 = cpuSplit(pid);
   const faults = minorFaults(pid) - faults0;
+  const servicesCpuMs = ((cpuOfComm("postgres") + cpuOfComm("redis-server") - services0) * 1000) / lat.length;
   const gc1 = await gcOf(port);
   const client = process.cpuUsage(client0);
   const single: number[] = [];
@@ -278,6 +298,7 @@ async function acceptance(pid: number, port: number, uploadAs: (gateway: number)
     serverCpuMs: ((split1[0] + split1[1] - split0[0] - split0[1]) * 1000) / lat.length,
     serverSysMs: ((split1[1] - split0[1]) * 1000) / lat.length,
     faultsPerUpload: faults / lat.length,
+    servicesCpuMs,
     poolMadeMiB: gc0 && gc1 ? ((gc1.poolMadeBytes ?? 0) - (gc0.poolMadeBytes ?? 0)) / 2 ** 20 : null,
     gc: gc0 && gc1 ? { major: (gc1.major - gc0.major) / lat.length, minor: (gc1.minor - gc0.minor) / lat.length, pauseMs: (gc1.pauseMs - gc0.pauseMs) / lat.length } : null,
     clientCpuMs: (client.user + client.system) / 1000 / lat.length,
@@ -302,7 +323,7 @@ async function main(): Promise<void> {
   if (!harness) await buildIfNeeded(ROOT, { ...process.env, NEXT_TELEMETRY_DISABLED: "1" });
   const warmedGiB = process.argv.includes("--cold-memory") ? 0 : await warmMemory();
   const appVars = Object.entries(APP_PROCESS_ENV).map(([k, v]) => `${k}=${v}`);
-  const server = spawnWith([...vars, ...appVars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"], [...profFlags(), "--import", "tsx", "scripts/bench-ingest.ts", "--serve"]);
+  const server = spawnWith([...vars, ...appVars, "LOG_LEVEL=warn", "UPLOAD_RATE_LIMIT_PER_MINUTE=100000"], [...profFlags(), "--import", "tsx", "scripts/bench-ingest.ts", "--serve", ...(process.argv.includes("--node-body") ? ["--node-body"] : [])]);
   const ready = JSON.parse((await waitLine(server, /^READY (.*)$/, "the bench server"))[1]) as Ready;
   if (!harness) Object.assign(ready, await startNextApp(vars, appVars));
   process.stderr.write("stack ready; simulating the standard record…\n");
@@ -344,7 +365,7 @@ async function main(): Promise<void> {
   const floorPlain = await floor("plain");
   await stop(floorServer);
   const summary = (name: string, a: Awaited<ReturnType<typeof acceptance>>) =>
-    `${name}: p50 ${median(a.lat).toFixed(0)} ms, p95 ${pct(a.lat, 95).toFixed(0)} ms, alone ${median(a.single).toFixed(0)} ms, server CPU ${a.serverCpuMs.toFixed(0)} ms/upload (kernel ${a.serverSysMs.toFixed(0)}), bench client CPU ${a.clientCpuMs.toFixed(0)} ms/upload, server page faults ${a.faultsPerUpload.toFixed(0)}/upload, GC per upload ${a.gc ? `${a.gc.major.toFixed(2)} major ${a.gc.minor.toFixed(1)} minor ${a.gc.pauseMs.toFixed(1)} ms paused` : "n/a"}, pool buffers made ${a.poolMadeMiB ?? "n/a"} MiB`;
+    `${name}: p50 ${median(a.lat).toFixed(0)} ms, p95 ${pct(a.lat, 95).toFixed(0)} ms, alone ${median(a.single).toFixed(0)} ms, server CPU ${a.serverCpuMs.toFixed(0)} ms/upload (kernel ${a.serverSysMs.toFixed(0)}), bench client CPU ${a.clientCpuMs.toFixed(0)} ms/upload, PostgreSQL + Redis CPU ${a.servicesCpuMs.toFixed(1)} ms/upload, server page faults ${a.faultsPerUpload.toFixed(0)}/upload, GC per upload ${a.gc ? `${a.gc.major.toFixed(2)} major ${a.gc.minor.toFixed(1)} minor ${a.gc.pauseMs.toFixed(1)} ms paused` : "n/a"}, pool buffers made ${a.poolMadeMiB ?? "n/a"} MiB`;
 
   if (process.argv.includes("--acceptance-only")) {
     for (const [name, a] of [["route gzip", accGzip], ["route plain", accPlain], ["floor gzip", floorGzip], ["floor plain", floorPlain]] as const) console.log(summary(name, a));
@@ -387,7 +408,7 @@ async function main(): Promise<void> {
   console.log(`\nModewarden ingest bench — ${new Date().toISOString()}, Node ${process.version}, ${cpus().length} cores`);
   console.log(`load average before ${load0.map((x) => x.toFixed(2)).join(" ")}, after ${load1.map((x) => x.toFixed(2)).join(" ")}`);
   console.log(harness
-    ? "upload path: loopback HTTP → a node:http harness wrapping the route handler of POST /api/v1/records (--harness; not the built app)"
+    ? `upload path: loopback HTTP → a node:http harness ${process.argv.includes("--node-body") ? "handing the Node request stream to the ingest service (--harness --node-body)" : "wrapping the route handler of POST /api/v1/records (--harness)"}; not the built app`
     : "upload path: loopback HTTP → the built app (next start), POST /api/v1/records");
   console.log(warmedGiB ? `memory: ${warmedGiB.toFixed(2)} GiB touched by a throw-away process first (warmMemory)` : "memory: cold (--cold-memory)");
   console.log(`standard record: ${N_CH} ch × ${FS} Hz × ${DURATION_S} s float32 LE, ${(rec.rawBytes / 1e6).toFixed(2)} MB decoded; multipart ${(accGzip.sentBytes / 1e6).toFixed(2)} MB with gzip, ${(accPlain.sentBytes / 1e6).toFixed(2)} MB plain`);
@@ -453,11 +474,23 @@ async function runBenchServer(): Promise<void> {
   await settingsRepo.insertAnalysisSettingsVersion(db(), ssi.asset.id, { ...DEFAULT_ANALYSIS_SETTINGS, methods: ["fdd", "ssi"] }, null);
 
   const gcTotals = gcCounter();
-  const { uploadBufferPool } = await import("@/lib/services/ingest/buffer-pool");
+  const [{ uploadBufferPool }, { deviceFromGatewayKey }, { ingestRecord }] = await Promise.all([
+    import("@/lib/services/ingest/buffer-pool"), import("@/lib/services/assets/gateway.service"), import("@/lib/services/ingest/ingest.service"),
+  ]);
+  const nodeBody = process.argv.includes("--node-body");
   const server = createServer((req: IncomingMessage, res: ServerResponse) => {
     if (req.url === "/bench/gc") return void res.end(JSON.stringify({ ...gcTotals(), poolMadeBytes: uploadBufferPool().allocatedBytes }));
     void (async () => {
       const url = new URL(req.url ?? "/", "http://127.0.0.1");
+      if (nodeBody && url.pathname === "/api/v1/records" && req.method === "POST") {
+        // --node-body: the ingest service reads the Node request stream itself (no web-stream
+        // Request), after the same key check; valid uploads only (anything else answers 500).
+        const device = await deviceFromGatewayKey((req.headers.authorization ?? "").replace(/^Bearer /, ""));
+        if (!device) throw new Error("unknown gateway key");
+        const out = await ingestRecord(device, { body: req, contentType: req.headers["content-type"] ?? null, contentLength: Number(req.headers["content-length"]) });
+        res.writeHead(202, { "content-type": "application/json" }).end(JSON.stringify({ record: { id: out.record.id, status: out.record.status } }));
+        return;
+      }
       const headers = new Headers();
       for (const [k, v] of Object.entries(req.headers)) if (typeof v === "string") headers.set(k, v);
       const reqBody = req.method === "POST" ? (Readable.toWeb(req) as ReadableStream<Uint8Array>) : undefined;

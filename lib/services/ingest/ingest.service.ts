@@ -23,7 +23,7 @@ import { consumeUploadAllowance } from "./rate-limit";
 import { UploadRecordMeta } from "./schemas";
 
 export interface UploadRequest {
-  body: ReadableStream<Uint8Array> | null;
+  body: AsyncIterable<Uint8Array> | null;
   contentType: string | null;
   /** Content-Length when declared (refused early when over the limit). */
   contentLength: number | null;

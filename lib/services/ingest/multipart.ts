@@ -30,7 +30,7 @@ const tooLarge = (limit: number) =>
  *   repeated or unknown part).
  */
 export async function readUploadParts(
-  body: ReadableStream<Uint8Array> | null, contentType: string | null, declaredLength: number | null, maxBytes: number,
+  body: AsyncIterable<Uint8Array> | null, contentType: string | null, declaredLength: number | null, maxBytes: number,
 ): Promise<UploadParts> {
   if (!contentType || !/^multipart\/form-data\b/i.test(contentType)) {
     throw new AppError("unsupported_media_type", "Send the record as multipart/form-data with parts meta and data.", {
@@ -73,13 +73,11 @@ export async function readUploadParts(
     onPartEnd: () => undefined,
   });
 
-  // The body is read straight from its web stream into the parser (no Node stream adapter).
-  const reader = body.getReader();
+  // The body (the route's web ReadableStream, or a Node request stream) is read chunk by chunk
+  // into the parser; leaving the loop on an error cancels the stream.
   let total = 0;
   try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) break;
+    for await (const value of body) {
       total += value.byteLength;
       if (total > maxBytes + META_MAX_BYTES) throw tooLarge(maxBytes);
       // After the close delimiter the rest (the epilogue) is only counted.
@@ -90,7 +88,6 @@ export async function readUploadParts(
     if (!seen.has("data")) throw bad("The part 'data' is missing.", "part_required", "data");
   } catch (e) {
     dataBytes.release();
-    reader.cancel().catch(() => undefined);
     throw e instanceof AppError ? e : bad("The multipart body is malformed.", "multipart_malformed");
   }
   return { meta: Buffer.concat(metaChunks).toString("utf8"), data: { bytes: dataBytes.view(), mimeType: dataType }, release: () => dataBytes.release() };
