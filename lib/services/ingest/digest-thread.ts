@@ -10,8 +10,8 @@
  * is digested on the calling thread with the same functions, so the answer never depends on
  * where it was computed.
  */
-import { createHash } from "node:crypto";
 import { Worker } from "node:worker_threads";
+import { sha256Hex } from "@/lib/storage/blob-store";
 
 /** Outcome of {@link digestUpload}: the hex SHA-256 and, for float32, the first non-finite value's index (-1: none). */
 export interface UploadDigest {
@@ -41,7 +41,7 @@ export function firstNonFiniteF32(bytes: Uint8Array, count: number): number {
 const isLittleEndianHost = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
 
 function digestHere(bytes: Uint8Array, floatCount: number): UploadDigest {
-  return { sha256: createHash("sha256").update(bytes).digest("hex"), firstNonFinite: floatCount > 0 ? firstNonFiniteF32(bytes, floatCount) : -1, thread: "caller" };
+  return { sha256: sha256Hex(bytes), firstNonFinite: floatCount > 0 ? firstNonFiniteF32(bytes, floatCount) : -1, thread: "caller" };
 }
 
 // The helper's program: the same scan and hash as above, written out because a worker started
