@@ -24,7 +24,7 @@ export interface PartHandlers {
   /** A part starts; returns the sink of its body bytes (views, valid as long as the caller's chunk). May throw to stop. */
   onPart(headers: PartHeaders): (bytes: Buffer) => void;
   /** The current part ended (its close delimiter was seen). */
-  onPartEnd(): void;
+  onPartEnd?(): void;
 }
 
 const CRLF = Buffer.from("\r\n");
@@ -117,7 +117,7 @@ export class MultipartParser {
   private delimiterSeen(next: number): number {
     if (this.sink) {
       this.sink = null;
-      this.handlers.onPartEnd();
+      this.handlers.onPartEnd?.();
     }
     this.state = "headers";
     this.headerBytes = EMPTY;

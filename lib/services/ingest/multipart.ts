@@ -70,7 +70,6 @@ export async function readUploadParts(
         metaChunks.push(Buffer.from(b));
       };
     },
-    onPartEnd: () => undefined,
   });
 
   // The body (the route's web ReadableStream, or a Node request stream) is read chunk by chunk

@@ -12,6 +12,8 @@ describe("BufferPool (reused upload buffers)", () => {
     expect(pool.keptBytes).toBe(3 * KIB);
     expect(pool.acquire(2000)).toBe(a);
     expect(pool.keptBytes).toBe(0);
+    // Reuse makes nothing new: only the first buffer was ever allocated.
+    expect(pool.allocatedBytes).toBe(3 * KIB);
   });
 
   it("picks the smallest kept buffer that fits and keeps no more than its bound", () => {
